@@ -1,0 +1,3 @@
+export default defineNuxtPlugin(() => {
+  useTheme().init()
+})

@@ -1,0 +1,8 @@
+import { defineConfig } from 'drizzle-kit'
+
+export default defineConfig({
+  dialect: 'mysql',
+  schema: './server/db/schema.ts',
+  out: './drizzle',
+  dbCredentials: { url: process.env.NUXT_DATABASE_URL || 'mysql://tubewright@127.0.0.1:3307/tubewright' },
+})

@@ -1,0 +1,6 @@
+import './scripts/lib/node20-polyfills.mjs'
+import withNuxt from './.nuxt/eslint.config.mjs'
+
+export default withNuxt({
+  ignores: ['drizzle/**', '.data/**', 'tests/artifacts/**'],
+})

@@ -1,0 +1,80 @@
+import { relations, sql } from 'drizzle-orm'
+import { datetime, index, int, mysqlEnum, mysqlTable, primaryKey, uniqueIndex, varchar, json } from 'drizzle-orm/mysql-core'
+
+// Shared column helpers: client-generatable UUID keys and UTC millisecond timestamps.
+const uuid = (name: string) => varchar(name, { length: 36 })
+const stamp = (name: string) => datetime(name, { mode: 'date', fsp: 3 })
+const timestamps = {
+  createdAt: stamp('created_at').notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+  updatedAt: stamp('updated_at').notNull().default(sql`CURRENT_TIMESTAMP(3)`).$onUpdate(() => new Date()),
+}
+
+export const ROLES = ['owner', 'tech', 'desk', 'player'] as const
+
+export const users = mysqlTable('users', {
+  id: uuid('id').primaryKey(),
+  email: varchar('email', { length: 254 }).notNull(),
+  name: varchar('name', { length: 120 }).notNull(),
+  passwordHash: varchar('password_hash', { length: 255 }).notNull(),
+  failedLogins: int('failed_logins').notNull().default(0),
+  firstFailedAt: stamp('first_failed_at'),
+  lockedUntil: stamp('locked_until'),
+  ...timestamps,
+  deletedAt: stamp('deleted_at'),
+}, t => [uniqueIndex('users_email_uq').on(t.email)])
+
+export const shops = mysqlTable('shops', {
+  id: uuid('id').primaryKey(),
+  name: varchar('name', { length: 120 }).notNull(),
+  ...timestamps,
+  deletedAt: stamp('deleted_at'),
+})
+
+export const memberships = mysqlTable('memberships', {
+  shopId: uuid('shop_id').notNull().references(() => shops.id),
+  userId: uuid('user_id').notNull().references(() => users.id),
+  role: mysqlEnum('role', ROLES).notNull(),
+  ...timestamps,
+}, t => [
+  primaryKey({ columns: [t.shopId, t.userId] }),
+  index('memberships_user_idx').on(t.userId),
+])
+
+export const invitations = mysqlTable('invitations', {
+  id: uuid('id').primaryKey(),
+  shopId: uuid('shop_id').notNull().references(() => shops.id),
+  email: varchar('email', { length: 254 }).notNull(),
+  role: mysqlEnum('role', ROLES).notNull(),
+  tokenHash: varchar('token_hash', { length: 64 }).notNull(),
+  invitedBy: uuid('invited_by').notNull().references(() => users.id),
+  expiresAt: stamp('expires_at').notNull(),
+  acceptedAt: stamp('accepted_at'),
+  acceptedBy: uuid('accepted_by'),
+  ...timestamps,
+  deletedAt: stamp('deleted_at'),
+}, t => [
+  uniqueIndex('invitations_token_uq').on(t.tokenHash),
+  index('invitations_shop_idx').on(t.shopId),
+])
+
+export const auditLog = mysqlTable('audit_log', {
+  id: uuid('id').primaryKey(),
+  shopId: uuid('shop_id'),
+  userId: uuid('user_id'),
+  action: varchar('action', { length: 64 }).notNull(),
+  detail: json('detail').$type<Record<string, unknown>>(),
+  createdAt: stamp('created_at').notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+}, t => [
+  index('audit_shop_idx').on(t.shopId, t.createdAt),
+  index('audit_user_idx').on(t.userId, t.createdAt),
+])
+
+export const usersRelations = relations(users, ({ many }) => ({ memberships: many(memberships) }))
+export const shopsRelations = relations(shops, ({ many }) => ({ memberships: many(memberships), invitations: many(invitations) }))
+export const membershipsRelations = relations(memberships, ({ one }) => ({
+  shop: one(shops, { fields: [memberships.shopId], references: [shops.id] }),
+  user: one(users, { fields: [memberships.userId], references: [users.id] }),
+}))
+export const invitationsRelations = relations(invitations, ({ one }) => ({
+  shop: one(shops, { fields: [invitations.shopId], references: [shops.id] }),
+}))

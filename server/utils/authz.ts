@@ -1,0 +1,41 @@
+import type { H3Event } from 'h3'
+import { and, eq, isNull } from 'drizzle-orm'
+import type { Role } from '#shared/utils/roles'
+
+export interface ShopAccess {
+  userId: string
+  shopId: string
+  role: Role
+}
+
+export async function requireUserId(event: H3Event): Promise<string> {
+  const session = await requireUserSession(event, { message: 'Sign in first.' })
+  return session.user.id
+}
+
+/**
+ * The one gate for shop-scoped routes: a non-member (or a missing shop) gets 404, so ids of
+ * other shops reveal nothing; a member without one of `roles` gets 403.
+ */
+export async function requireShopRole(event: H3Event, shopId: string, roles?: readonly Role[]): Promise<ShopAccess> {
+  const userId = await requireUserId(event)
+  const [row] = await useDb()
+    .select({ role: tables.memberships.role })
+    .from(tables.memberships)
+    .innerJoin(tables.shops, eq(tables.shops.id, tables.memberships.shopId))
+    .where(and(eq(tables.memberships.shopId, shopId), eq(tables.memberships.userId, userId), isNull(tables.shops.deletedAt)))
+    .limit(1)
+  if (!row) throw createError({ statusCode: 404, message: 'Shop not found.' })
+  if (roles && !roles.includes(row.role)) {
+    throw createError({ statusCode: 403, message: 'Your role in this shop does not allow that.' })
+  }
+  return { userId, shopId, role: row.role }
+}
+
+/** Same gate for routes that work on the shop chosen in the session (the shop switcher). */
+export async function requireActiveShopRole(event: H3Event, roles?: readonly Role[]): Promise<ShopAccess> {
+  const session = await requireUserSession(event, { message: 'Sign in first.' })
+  const shopId = session.activeShopId
+  if (!shopId) throw createError({ statusCode: 409, message: 'Choose a shop first.' })
+  return requireShopRole(event, shopId, roles)
+}

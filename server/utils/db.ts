@@ -1,0 +1,25 @@
+import { drizzle } from 'drizzle-orm/mysql2'
+import { createPool, type Pool } from 'mysql2/promise'
+import * as schema from '../db/schema'
+
+let pool: Pool | undefined
+let instance: ReturnType<typeof makeDb> | undefined
+
+function makeDb(p: Pool) {
+  // planetscale mode: MariaDB has no LATERAL joins for relational queries.
+  return drizzle(p, { schema, mode: 'planetscale' })
+}
+
+export function useDb() {
+  if (!instance) {
+    const url = useRuntimeConfig().databaseUrl
+    if (!url) throw createError({ statusCode: 503, message: 'The database is not configured.' })
+    pool = createPool({ uri: url, timezone: 'Z', connectionLimit: 20, dateStrings: false })
+    instance = makeDb(pool)
+  }
+  return instance
+}
+
+export type Db = ReturnType<typeof useDb>
+export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0]
+export { schema as tables }

@@ -1,0 +1,21 @@
+import { and, asc, eq, isNull } from 'drizzle-orm'
+import type { MePayload } from '#shared/types/me'
+
+export async function loadMe(userId: string, activeShopId?: string | null): Promise<MePayload | null> {
+  const db = useDb()
+  const [user] = await db.select({ id: tables.users.id, name: tables.users.name, email: tables.users.email })
+    .from(tables.users).where(and(eq(tables.users.id, userId), isNull(tables.users.deletedAt))).limit(1)
+  if (!user) return null
+  const memberships = await db
+    .select({ shopId: tables.shops.id, shopName: tables.shops.name, role: tables.memberships.role })
+    .from(tables.memberships)
+    .innerJoin(tables.shops, eq(tables.shops.id, tables.memberships.shopId))
+    .where(and(eq(tables.memberships.userId, userId), isNull(tables.shops.deletedAt)))
+    .orderBy(asc(tables.shops.name))
+  const active = memberships.find(m => m.shopId === activeShopId) ?? memberships[0] ?? null
+  return {
+    user,
+    memberships,
+    activeShop: active ? { id: active.shopId, name: active.shopName, role: active.role } : null,
+  }
+}

@@ -1,0 +1,3 @@
+export * from './tool-schemas'
+export * from './tool-compute'
+export * from './saved-result'
