@@ -4,7 +4,7 @@ import { createPool } from 'mysql2/promise'
 import { Hash } from '@adonisjs/hash'
 import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
 import { sql } from 'drizzle-orm'
-import * as schema from './schema'
+import * as schema from './schema/index'
 import { DEMO_SHOP, DEMO_USERS } from './demo'
 
 const url = process.env.NUXT_DATABASE_URL

@@ -1,6 +1,6 @@
 import { drizzle } from 'drizzle-orm/mysql2'
 import { createPool, type Pool } from 'mysql2/promise'
-import * as schema from '../db/schema'
+import * as schema from '../db/schema/index'
 
 let pool: Pool | undefined
 let instance: ReturnType<typeof makeDb> | undefined

@@ -1,15 +1,7 @@
 import { relations, sql } from 'drizzle-orm'
-import { datetime, index, int, mysqlEnum, mysqlTable, primaryKey, uniqueIndex, varchar, json } from 'drizzle-orm/mysql-core'
-
-// Shared column helpers: client-generatable UUID keys and UTC millisecond timestamps.
-const uuid = (name: string) => varchar(name, { length: 36 })
-const stamp = (name: string) => datetime(name, { mode: 'date', fsp: 3 })
-const timestamps = {
-  createdAt: stamp('created_at').notNull().default(sql`CURRENT_TIMESTAMP(3)`),
-  updatedAt: stamp('updated_at').notNull().default(sql`CURRENT_TIMESTAMP(3)`).$onUpdate(() => new Date()),
-}
-
-export const ROLES = ['owner', 'tech', 'desk', 'player'] as const
+import { index, int, mysqlEnum, mysqlTable, primaryKey, uniqueIndex, varchar, json } from 'drizzle-orm/mysql-core'
+import { ROLES } from '../../../shared/utils/roles'
+import { stamp, timestamps, uuid } from './columns'
 
 export const users = mysqlTable('users', {
   id: uuid('id').primaryKey(),
@@ -19,14 +11,14 @@ export const users = mysqlTable('users', {
   failedLogins: int('failed_logins').notNull().default(0),
   firstFailedAt: stamp('first_failed_at'),
   lockedUntil: stamp('locked_until'),
-  ...timestamps,
+  ...timestamps(),
   deletedAt: stamp('deleted_at'),
 }, t => [uniqueIndex('users_email_uq').on(t.email)])
 
 export const shops = mysqlTable('shops', {
   id: uuid('id').primaryKey(),
   name: varchar('name', { length: 120 }).notNull(),
-  ...timestamps,
+  ...timestamps(),
   deletedAt: stamp('deleted_at'),
 })
 
@@ -34,7 +26,7 @@ export const memberships = mysqlTable('memberships', {
   shopId: uuid('shop_id').notNull().references(() => shops.id),
   userId: uuid('user_id').notNull().references(() => users.id),
   role: mysqlEnum('role', ROLES).notNull(),
-  ...timestamps,
+  ...timestamps(),
 }, t => [
   primaryKey({ columns: [t.shopId, t.userId] }),
   index('memberships_user_idx').on(t.userId),
@@ -50,7 +42,7 @@ export const invitations = mysqlTable('invitations', {
   expiresAt: stamp('expires_at').notNull(),
   acceptedAt: stamp('accepted_at'),
   acceptedBy: uuid('accepted_by'),
-  ...timestamps,
+  ...timestamps(),
   deletedAt: stamp('deleted_at'),
 }, t => [
   uniqueIndex('invitations_token_uq').on(t.tokenHash),
