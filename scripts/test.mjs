@@ -4,7 +4,7 @@ import { ensureDependencies } from './lib/deps.mjs'
 const log = msg => console.log(`[test] ${msg}`)
 ensureDependencies(log)
 
-const { execSync, spawnSync } = await import('node:child_process')
+const { execSync, spawn, spawnSync } = await import('node:child_process')
 const { existsSync, mkdtempSync, readFileSync } = await import('node:fs')
 const { tmpdir } = await import('node:os')
 const { join } = await import('node:path')
@@ -23,6 +23,11 @@ const freePort = () => new Promise((resolve, reject) => {
     const { port } = s.address()
     s.close(() => resolve(port))
   })
+})
+
+const run = (cmd, opts) => new Promise((resolve) => {
+  const child = spawn(cmd, { shell: true, stdio: 'inherit', ...opts })
+  child.on('exit', status => resolve({ status }))
 })
 
 function step(name, cmd) {
@@ -81,9 +86,8 @@ try {
 
   const report = join(tmp, 'vitest.json')
   const projects = onlySuites.map(s => `--project ${s}`).join(' ')
-  const r = spawnSync(`npx vitest run ${projects} --reporter=default --reporter=json --outputFile.json=${report}`, {
-    shell: true,
-    stdio: 'inherit',
+  // Async: the SMTP fake lives in this process and must keep answering while tests run.
+  const r = await run(`npx vitest run ${projects} --reporter=default --reporter=json --outputFile.json=${report}`, {
     env: {
       ...process.env,
       TW_TEST_URL: server.url,

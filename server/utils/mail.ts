@@ -11,6 +11,9 @@ function useTransport() {
       port: Number(config.smtpPort),
       secure: false,
       ignoreTLS: true,
+      connectionTimeout: 5000,
+      greetingTimeout: 5000,
+      socketTimeout: 10_000,
     })
   }
   return transport
