@@ -6,6 +6,8 @@ export interface ShopAccess {
   userId: string
   shopId: string
   role: Role
+  /** When this membership began (ms); a new membership means a fresh view of the shop. */
+  memberSince: number
 }
 
 export async function requireUserId(event: H3Event): Promise<string> {
@@ -20,7 +22,7 @@ export async function requireUserId(event: H3Event): Promise<string> {
 export async function requireShopRole(event: H3Event, shopId: string, roles?: readonly Role[]): Promise<ShopAccess> {
   const userId = await requireUserId(event)
   const [row] = await useDb()
-    .select({ role: tables.memberships.role })
+    .select({ role: tables.memberships.role, since: tables.memberships.createdAt })
     .from(tables.memberships)
     .innerJoin(tables.shops, eq(tables.shops.id, tables.memberships.shopId))
     .where(and(eq(tables.memberships.shopId, shopId), eq(tables.memberships.userId, userId), isNull(tables.shops.deletedAt)))
@@ -29,7 +31,7 @@ export async function requireShopRole(event: H3Event, shopId: string, roles?: re
   if (roles && !roles.includes(row.role)) {
     throw createError({ statusCode: 403, message: 'Your role in this shop does not allow that.' })
   }
-  return { userId, shopId, role: row.role }
+  return { userId, shopId, role: row.role, memberSince: row.since.getTime() }
 }
 
 /** Same gate for routes that work on the shop chosen in the session (the shop switcher). */

@@ -1,1 +1,3 @@
 export * from './auth'
+export * from './notebook'
+export * from './sync'

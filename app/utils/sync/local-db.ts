@@ -1,0 +1,129 @@
+// The on-device database: one per signed-in user. Plain Dexie, no Vue, so tests run it in node.
+import Dexie, { type Table } from 'dexie'
+import type { MutationName, SyncedTable } from '../../../shared/utils/sync/protocol'
+
+export const LOCAL_DB_PREFIX = 'tubewright-'
+export const localDbName = (userId: string) => `${LOCAL_DB_PREFIX}${userId}`
+
+/** Per shop: this device's client id and mutation counter, and the pull cursor. */
+export interface MetaRow {
+  shopId: string
+  clientId: string
+  nextId: number
+  cookie: string | null
+  lmid: number
+  lastSyncedAt: string | null
+}
+
+export interface OutboxRow {
+  shopId: string
+  id: number
+  uuid: string
+  name: MutationName
+  args: Record<string, unknown>
+  baseVersion?: number
+  /** `table:id` of every record it changes, for rebasing. */
+  targets: string[]
+  createdAt: string
+}
+
+export interface ServerRow {
+  table: SyncedTable
+  id: string
+  shopId: string
+  version: number
+  deleted: boolean
+  data: Record<string, unknown> | null
+}
+
+interface ViewBase {
+  id: string
+  shopId: string
+  /** Server version this view is based on (0: never reached the server). */
+  version: number
+  deleted: boolean
+  /** Changes on this device not yet confirmed by the server. */
+  pending: number
+}
+
+export interface NoteRow extends ViewBase {
+  jobId: string | null
+  title: string
+  body: string
+  authorId: string
+  createdAt: string
+  updatedAt: string
+}
+
+export interface MeasurementRow extends ViewBase {
+  jobId: string | null
+  rigId: string | null
+  tool: string
+  inputs: Record<string, unknown>
+  outputs: Record<string, unknown>
+  engineVersion: string
+  label: string | null
+  authorId: string
+  createdAt: string
+}
+
+export interface ConflictRow extends ViewBase {
+  tableName: SyncedTable
+  rowId: string
+  field: string
+  serverValue: unknown
+  clientValue: unknown
+  serverAuthor: string | null
+  clientAuthor: string
+  serverChangedAt: string | null
+  clientChangedAt: string
+  status: 'open' | 'resolved'
+  note: string | null
+}
+
+export interface RejectionRow {
+  seq?: number
+  shopId: string
+  uuid: string
+  name: MutationName
+  args: Record<string, unknown>
+  reason: string
+  at: string
+}
+
+export interface BlobRow {
+  sha256: string
+  shopId: string
+  type: string
+  size: number
+  blob: Blob
+  status: 'pending' | 'uploaded'
+  createdAt: string
+}
+
+export class LocalDb extends Dexie {
+  meta!: Table<MetaRow, string>
+  outbox!: Table<OutboxRow, [string, number]>
+  server!: Table<ServerRow, [string, string]>
+  notes!: Table<NoteRow, string>
+  measurements!: Table<MeasurementRow, string>
+  conflicts!: Table<ConflictRow, string>
+  rejections!: Table<RejectionRow, number>
+  blobs!: Table<BlobRow, string>
+
+  constructor(name: string) {
+    super(name)
+    this.version(1).stores({
+      meta: 'shopId',
+      outbox: '[shopId+id], shopId, uuid, *targets',
+      server: '[table+id], shopId',
+      notes: 'id, shopId, updatedAt, jobId',
+      measurements: 'id, shopId, createdAt, jobId, rigId',
+      conflicts: 'id, shopId, rowId, status',
+      rejections: '++seq, shopId, uuid',
+      blobs: 'sha256, shopId, status',
+    })
+  }
+}
+
+export const VIEW_TABLES = ['notes', 'measurements', 'conflicts'] as const

@@ -1,0 +1,73 @@
+// How a pending change looks on this device before the server confirms it, and how a
+// server row becomes a view row. Pure functions, replayed on top of server rows (rebase).
+import type { SyncedTable } from '../../../shared/utils/sync/protocol'
+import type { ConflictRow, MeasurementRow, NoteRow, OutboxRow, ServerRow } from './local-db'
+
+export type ViewRow = NoteRow | MeasurementRow | ConflictRow
+export const key = (table: SyncedTable, id: string) => `${table}:${id}`
+
+export function serverToView(s: ServerRow): ViewRow {
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any -- server rows are checked by the protocol
+  const d = (s.data ?? {}) as Record<string, any>
+  const base = { id: s.id, shopId: s.shopId, version: s.version, deleted: s.deleted, pending: 0 }
+  if (s.table === 'notes') {
+    return { ...base, jobId: d.jobId ?? null, title: d.title ?? '', body: d.body ?? '', authorId: d.authorId, createdAt: d.createdAt, updatedAt: d.updatedAt } satisfies NoteRow
+  }
+  if (s.table === 'measurements') {
+    return { ...base, jobId: d.jobId ?? null, rigId: d.rigId ?? null, tool: d.tool, inputs: d.inputs, outputs: d.outputs, engineVersion: d.engineVersion, label: d.label ?? null, authorId: d.authorId, createdAt: d.createdAt } satisfies MeasurementRow
+  }
+  return {
+    ...base, tableName: d.tableName, rowId: d.rowId, field: d.field, serverValue: d.serverValue, clientValue: d.clientValue,
+    serverAuthor: d.serverAuthor ?? null, clientAuthor: d.clientAuthor, serverChangedAt: d.serverChangedAt ?? null,
+    clientChangedAt: d.clientChangedAt, status: d.status, note: d.note ?? null,
+  } satisfies ConflictRow
+}
+
+export interface ReduceContext {
+  userId: string
+  shopId: string
+  /** Looks up a conflict the change refers to (conflict.resolve touches the record too). */
+  conflict?: ConflictRow
+}
+
+/** Apply one pending change to the row it targets in `table`. */
+export function reduce(table: SyncedTable, row: ViewRow | undefined, m: OutboxRow, ctx: ReduceContext): ViewRow | undefined {
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any -- args were validated when the change was made
+  const a = m.args as Record<string, any>
+  const at = m.createdAt
+  const bump = <T extends ViewRow>(r: T, patch: Partial<T>): T => ({ ...r, ...patch, pending: r.pending + 1 })
+  switch (m.name) {
+    case 'note.create':
+      if (row) return bump(row as NoteRow, {})
+      return { id: a.id, shopId: ctx.shopId, version: 0, deleted: false, pending: 1, jobId: a.jobId ?? null, title: a.title ?? '', body: a.body, authorId: ctx.userId, createdAt: at, updatedAt: at } satisfies NoteRow
+    case 'note.setFields': {
+      if (!row) return row
+      const fields = Object.fromEntries(Object.entries(a.fields ?? {}).filter(([, v]) => v !== undefined))
+      return bump(row as NoteRow, { ...fields, updatedAt: at })
+    }
+    case 'note.delete':
+    case 'measurement.delete':
+      return row ? bump(row, { deleted: true }) : row
+    case 'note.restore':
+      return row ? bump(row, { deleted: false }) : row
+    case 'measurement.create':
+      if (row) return bump(row as MeasurementRow, {})
+      return { id: a.id, shopId: ctx.shopId, version: 0, deleted: false, pending: 1, jobId: a.jobId ?? null, rigId: a.rigId ?? null, tool: a.tool, inputs: a.inputs, outputs: a.outputs, engineVersion: a.engineVersion, label: a.label ?? null, authorId: ctx.userId, createdAt: at } satisfies MeasurementRow
+    case 'conflict.resolve': {
+      if (table === 'conflicts') return row ? bump(row as ConflictRow, { status: 'resolved' }) : row
+      const c = ctx.conflict
+      if (!row || !c) return row
+      if (c.field === '_delete') return bump(row, { deleted: a.value === true })
+      return bump(row as NoteRow, { [c.field]: a.value, deleted: false } as Partial<NoteRow>)
+    }
+  }
+  return row
+}
+
+/** The records a change touches, as `table:id` keys. */
+export function targetsOf(m: Pick<OutboxRow, 'name' | 'args'>, conflict?: ConflictRow): string[] {
+  const id = String((m.args as { id: string }).id)
+  if (m.name.startsWith('note.')) return [key('notes', id)]
+  if (m.name.startsWith('measurement.')) return [key('measurements', id)]
+  return conflict ? [key('conflicts', id), key(conflict.tableName, conflict.rowId)] : [key('conflicts', id)]
+}

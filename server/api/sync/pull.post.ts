@@ -1,0 +1,10 @@
+import { pullBodySchema } from '#shared/utils/sync/protocol'
+import { withRetry } from '../../utils/sync/errors'
+import { handlePull } from '../../utils/sync/pull'
+
+export default defineEventHandler(async (event) => {
+  await requireUserId(event)
+  const body = await validBody(event, pullBodySchema)
+  const access = await withRetry(() => requireShopRole(event, body.shopId))
+  return handlePull(access, body)
+})

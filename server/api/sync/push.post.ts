@@ -1,0 +1,10 @@
+import { pushBodySchema } from '#shared/utils/sync/protocol'
+import { withRetry } from '../../utils/sync/errors'
+import { handlePush } from '../../utils/sync/push'
+
+export default defineEventHandler(async (event) => {
+  await requireUserId(event)
+  const body = await validBody(event, pushBodySchema)
+  const access = await withRetry(() => requireShopRole(event, body.shopId))
+  return handlePush(access, body)
+})

@@ -1,0 +1,99 @@
+// The sync wire protocol: push and pull bodies, mutation names and their arguments.
+import { z } from 'zod'
+import { BENCH_TOOL_IDS } from '../bench/tool-schemas'
+
+/** Bumped when a mutation's arguments or a table's shape change incompatibly. */
+export const SYNC_SCHEMA_VERSION = 1
+export const PULL_PAGE_SIZE = 500
+export const MAX_PUSH_MUTATIONS = 500
+
+const id = z.uuid({ message: 'must be an id' })
+const noteText = z.string().max(20_000, { message: 'at most 20,000 characters' })
+const noteTitle = z.string().max(200, { message: 'at most 200 characters' })
+
+export const MUTATION_ARGS = {
+  'note.create': z.object({ id, jobId: id.nullable(), body: noteText, title: noteTitle.optional() }),
+  'note.setFields': z.object({
+    id,
+    fields: z.object({ body: noteText.optional(), title: noteTitle.optional() }).refine(f => Object.keys(f).length > 0, { message: 'change at least one field' }),
+  }),
+  'note.delete': z.object({ id }),
+  'note.restore': z.object({ id }),
+  'measurement.create': z.object({
+    id,
+    tool: z.enum(BENCH_TOOL_IDS),
+    inputs: z.record(z.string(), z.unknown()),
+    outputs: z.record(z.string(), z.unknown()),
+    engineVersion: z.string().max(20),
+    label: z.string().max(200).optional(),
+    jobId: id.nullable().optional(),
+    rigId: id.nullable().optional(),
+  }),
+  'measurement.delete': z.object({ id }),
+  'conflict.resolve': z.object({ id, value: z.unknown() }),
+} as const
+
+export type MutationName = keyof typeof MUTATION_ARGS
+export const MUTATION_NAMES = Object.keys(MUTATION_ARGS) as MutationName[]
+export type MutationArgs<N extends MutationName> = z.infer<(typeof MUTATION_ARGS)[N]>
+
+export const isMutationName = (name: string): name is MutationName => name in MUTATION_ARGS
+
+export const mutationSchema = z.object({
+  id: z.number().int().positive(),
+  uuid: id,
+  name: z.string().min(1).max(64),
+  args: z.unknown(),
+  baseVersion: z.number().int().nonnegative().optional(),
+})
+export type Mutation = z.infer<typeof mutationSchema>
+
+export const pushBodySchema = z.object({
+  clientId: id,
+  shopId: id,
+  schemaVersion: z.number().int().positive(),
+  mutations: z.array(mutationSchema).max(MAX_PUSH_MUTATIONS),
+})
+export type PushBody = z.infer<typeof pushBodySchema>
+
+export type MutationStatus = 'applied' | 'duplicate' | 'rejected' | 'conflict'
+export interface MutationResult {
+  id: number
+  status: MutationStatus
+  reason?: string
+  /** For a duplicate: what happened the first time. */
+  was?: Exclude<MutationStatus, 'duplicate'>
+}
+export interface PushReply { lmid: number, results: MutationResult[] }
+
+export const pullBodySchema = z.object({
+  clientId: id,
+  shopId: id,
+  schemaVersion: z.number().int().positive(),
+  cookie: z.string().max(500).nullable(),
+})
+export type PullBody = z.infer<typeof pullBodySchema>
+
+export type SyncedTable = 'notes' | 'measurements' | 'conflicts'
+export interface RowChange {
+  table: SyncedTable
+  id: string
+  version: number
+  deleted: boolean
+  data: Record<string, unknown> | null
+}
+export interface PullReply { cookie: string, lmid: number, reset: boolean, more: boolean, changes: RowChange[] }
+
+/** Stable JSON (sorted keys) so the same mutation always hashes the same. */
+export function canonicalJson(value: unknown): string {
+  if (value === null || typeof value !== 'object') return JSON.stringify(value) ?? 'null'
+  if (Array.isArray(value)) return `[${value.map(canonicalJson).join(',')}]`
+  const entries = Object.entries(value as Record<string, unknown>).filter(([, v]) => v !== undefined).sort(([a], [b]) => (a < b ? -1 : 1))
+  return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(',')}}`
+}
+
+/** Which record a mutation touches (for rebasing the optimistic view). */
+export function mutationTarget(name: MutationName, args: { id: string }): { table: SyncedTable, id: string } {
+  const table: SyncedTable = name.startsWith('note.') ? 'notes' : name.startsWith('measurement.') ? 'measurements' : 'conflicts'
+  return { table, id: args.id }
+}
