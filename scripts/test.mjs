@@ -95,6 +95,8 @@ try {
       TW_TEST_DB_URL: dbUrl,
       TW_DEMO_PASSWORD: demoPassword,
       TW_TEST_SMTP_PORT: String(smtpPort),
+      // Lets a test start (and kill) a second app server on the same database.
+      TW_TEST_APP_ENV: JSON.stringify(appEnv),
     },
   })
   if (existsSync(report)) {

@@ -4,10 +4,10 @@ export const DEMO_PASSWORD = process.env.TW_DEMO_PASSWORD ?? 'tubewright-demo'
 
 export interface Reply<T = any> { status: number, body: T, headers: Headers }
 
-export function client() {
-  let cookie = ''
+export function client(base = BASE, initialCookie = '') {
+  let cookie = initialCookie
   async function call<T = any>(method: string, path: string, body?: unknown): Promise<Reply<T>> {
-    const res = await fetch(BASE + path, {
+    const res = await fetch(base + path, {
       method,
       headers: { ...(body !== undefined ? { 'content-type': 'application/json' } : {}), ...(cookie ? { cookie } : {}) },
       body: body === undefined ? undefined : typeof body === 'string' ? body : JSON.stringify(body),
@@ -31,6 +31,7 @@ export function client() {
     del: <T = any>(p: string) => call<T>('DELETE', p),
     raw: call,
     get cookie() { return cookie },
+    set cookie(value: string) { cookie = value },
   }
 }
 
