@@ -1,11 +1,10 @@
 import { randomUUID } from 'node:crypto'
-import { spawn, type ChildProcess } from 'node:child_process'
-import { createServer } from 'node:net'
 import { describe, expect, it } from 'vitest'
 import { client, login } from './helpers/client'
 import { device, eventually, shopWithMembers } from './helpers/devices'
 import { notesOf, sameMap } from './helpers/soak'
 import { sql } from './helpers/db'
+import { secondServer } from './helpers/second-server'
 
 describe('delivery', () => {
   it('8 concurrent pushers, 5,000 changes, a 9th device pulling every 50 ms ends equal to the server', async () => {
@@ -52,30 +51,10 @@ describe('delivery', () => {
   })
 
   it('loses nothing and applies nothing twice when the server is killed mid-push, 100 times', async () => {
-    const env = JSON.parse(process.env.TW_TEST_APP_ENV ?? '{}') as Record<string, string>
-    const port = await new Promise<number>((resolve) => {
-      const s = createServer().listen(0, '127.0.0.1', () => {
-        const p = (s.address() as { port: number }).port
-        s.close(() => resolve(p))
-      })
-    })
-    const base = `http://localhost:${port}`
-    let server: ChildProcess | null = null
-    const start = async () => {
-      server = spawn(process.execPath, ['.output/server/index.mjs'], { env: { ...process.env, ...env, PORT: String(port), NITRO_PORT: String(port), HOST: '127.0.0.1', NITRO_HOST: '127.0.0.1', NODE_ENV: 'production' }, stdio: 'ignore' })
-      for (let i = 0; i < 200; i++) {
-        try {
-          if ((await fetch(`${base}/api/health`)).ok) return
-        }
-        catch { /* starting */ }
-        await new Promise(r => setTimeout(r, 50))
-      }
-      throw new Error('second server did not start')
-    }
-    await start()
+    const server = await secondServer()
     try {
       const { shopId, members } = await shopWithMembers(0)
-      const http = client(base, members[0]!.cookie)
+      const http = client(server.base, members[0]!.cookie)
       const d = await device(http, shopId)
       const ids: string[] = []
       for (let i = 0; i < 100; i++) {
@@ -85,9 +64,9 @@ describe('delivery', () => {
         const pushing = d.engine.push().catch(() => null)
         // Kill at a random point: before, during or after the request is handled.
         await new Promise(r => setTimeout(r, Math.random() * 15))
-        server!.kill('SIGKILL')
+        server.kill()
         await pushing
-        await start()
+        await server.start()
       }
       await eventually(() => d.engine.push())
       expect(await d.engine.pendingCount()).toBe(0)
@@ -98,7 +77,24 @@ describe('delivery', () => {
       expect(Number(log!.u)).toBe(100)
     }
     finally {
-      (server as ChildProcess | null)?.kill('SIGKILL')
+      server.kill()
     }
   }, 240_000)
+
+  it('answers 503 and changes nothing while the database is down; the device keeps its changes', async () => {
+    const { shopId, members } = await shopWithMembers(0)
+    const deadDb = (JSON.parse(process.env.TW_TEST_APP_ENV ?? '{}').NUXT_DATABASE_URL as string).replace(/:(\d+)\//, ':1/')
+    const server = await secondServer({ NUXT_DATABASE_URL: deadDb })
+    try {
+      const userId = (await members[0]!.get('/api/auth/me')).body.user.id
+      const d = await device(client(server.base, members[0]!.cookie), shopId, { userId })
+      await d.engine.mutate('note.create', { id: randomUUID(), jobId: null, body: 'waits for the database' })
+      await expect(d.engine.push()).rejects.toMatchObject({ status: 503 })
+      expect(await d.engine.pendingCount()).toBe(1)
+      expect((await notesOf(shopId)).size).toBe(0)
+    }
+    finally {
+      server.kill()
+    }
+  })
 })

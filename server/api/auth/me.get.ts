@@ -1,6 +1,8 @@
+import { withRetry } from '../../utils/sync/errors'
+
 export default defineEventHandler(async (event) => {
   const session = await requireUserSession(event, { message: 'Sign in first.' })
-  const me = await loadMe(session.user.id, session.activeShopId)
+  const me = await withRetry(() => loadMe(session.user.id, session.activeShopId))
   if (!me) {
     await clearUserSession(event)
     throw createError({ statusCode: 401, message: 'Sign in first.' })

@@ -23,60 +23,70 @@ async function ensureShopVersionRow(shopId: string) {
   await useDb().insert(tables.shopVersions).ignore().values({ shopId })
 }
 
-type Step = MutationResult | 'gap'
+type Access = { userId: string, shopId: string, role: Role }
 
-async function applyOne(access: { userId: string, shopId: string, role: Role }, clientId: string, m: Mutation): Promise<Step> {
-  const hash = payloadHash(m)
+/**
+ * One transaction per push: the client row and then the shop's version row are locked (always
+ * in that order), every mutation is applied with its log entry, and lmid advances with them.
+ */
+async function applyBatch(access: Access, clientId: string, mutations: Mutation[]): Promise<MutationResult[]> {
   return withRetry(() => useDb().transaction(async (tx) => {
     const [client] = await tx.select({ lmid: tables.syncClients.lmid }).from(tables.syncClients)
       .where(eq(tables.syncClients.id, clientId)).for('update')
-    const lmid = client?.lmid ?? 0
-    if (m.id <= lmid) {
-      const [logged] = await tx.select().from(tables.syncMutations)
-        .where(and(eq(tables.syncMutations.clientId, clientId), eq(tables.syncMutations.mutationId, m.id)))
-      if (logged && logged.payloadHash !== hash) {
-        throw createError({ statusCode: 422, message: `Mutation ${m.id} was already used for a different change.` })
-      }
-      return { id: m.id, status: 'duplicate', was: logged?.status ?? 'applied', ...(logged?.reason ? { reason: logged.reason } : {}) } satisfies MutationResult
-    }
-    if (m.id > lmid + 1) return 'gap'
-
-    const [sameUuid] = await tx.select({ clientId: tables.syncMutations.clientId }).from(tables.syncMutations).where(eq(tables.syncMutations.uuid, m.uuid))
-    if (sameUuid) throw createError({ statusCode: 422, message: `Mutation ${m.uuid} was already applied under another number.` })
-
     const [shopRow] = await tx.select({ version: tables.shopVersions.version }).from(tables.shopVersions)
       .where(eq(tables.shopVersions.shopId, access.shopId)).for('update')
-    const version = (shopRow?.version ?? 0) + 1
-    const now = new Date()
-    let outcome: ApplyOutcome
-    const parsed = MUTATION_ARGS[m.name as keyof typeof MUTATION_ARGS].safeParse(m.args)
-    if (!parsed.success) {
-      outcome = { status: 'rejected', touched: false, reason: zodMessage(parsed.error) }
-    }
-    else {
-      try {
-        // A savepoint, so a rejected mutation leaves nothing behind but its log entry.
-        const apply = APPLY[m.name as keyof typeof APPLY] as (ctx: ApplyContext, args: unknown) => Promise<ApplyOutcome>
-        outcome = await tx.transaction(inner => apply({ tx: inner, ...access, clientId, version, mutationUuid: m.uuid, baseVersion: m.baseVersion, now }, parsed.data))
+    let lmid = client?.lmid ?? 0
+    let version = shopRow?.version ?? 0
+    const startVersion = version
+    const startLmid = lmid
+    const results: MutationResult[] = []
+    for (const m of mutations) {
+      const hash = payloadHash(m)
+      if (m.id <= lmid) {
+        const [logged] = await tx.select().from(tables.syncMutations)
+          .where(and(eq(tables.syncMutations.clientId, clientId), eq(tables.syncMutations.mutationId, m.id)))
+        if (logged && logged.payloadHash !== hash) {
+          throw createError({ statusCode: 422, message: `Mutation ${m.id} was already used for a different change.` })
+        }
+        results.push({ id: m.id, status: 'duplicate', was: logged?.status ?? 'applied', ...(logged?.reason ? { reason: logged.reason } : {}) })
+        continue
       }
-      catch (error) {
-        if (!(error instanceof Rejection)) throw error
-        outcome = { status: 'rejected', touched: false, reason: error.message }
+      if (m.id > lmid + 1) break
+      const [sameUuid] = await tx.select({ clientId: tables.syncMutations.clientId }).from(tables.syncMutations).where(eq(tables.syncMutations.uuid, m.uuid))
+      if (sameUuid) throw createError({ statusCode: 422, message: `Mutation ${m.uuid} was already applied under another number.` })
+
+      const next = version + 1
+      let outcome: ApplyOutcome
+      const parsed = MUTATION_ARGS[m.name as keyof typeof MUTATION_ARGS].safeParse(m.args)
+      if (!parsed.success) {
+        outcome = { status: 'rejected', touched: false, reason: zodMessage(parsed.error) }
       }
+      else {
+        try {
+          const apply = APPLY[m.name as keyof typeof APPLY] as (ctx: ApplyContext, args: unknown) => Promise<ApplyOutcome>
+          // A savepoint, so a rejected mutation leaves nothing behind but its log entry.
+          outcome = await tx.transaction(inner => apply({ tx: inner, ...access, clientId, version: next, mutationUuid: m.uuid, baseVersion: m.baseVersion, now: new Date() }, parsed.data))
+        }
+        catch (error) {
+          if (!(error instanceof Rejection)) throw error
+          outcome = { status: 'rejected', touched: false, reason: error.message }
+        }
+      }
+      if (outcome.touched) version = next
+      await tx.insert(tables.syncMutations).values({
+        clientId, mutationId: m.id, uuid: m.uuid, name: m.name, payloadHash: hash, status: outcome.status,
+        reason: outcome.reason?.slice(0, 500) ?? null, version: outcome.touched ? next : null, userId: access.userId,
+      })
+      lmid = m.id
+      results.push({ id: m.id, status: outcome.status, ...(outcome.reason ? { reason: outcome.reason } : {}) })
     }
-    if (outcome.touched) {
-      await tx.update(tables.shopVersions).set({ version }).where(eq(tables.shopVersions.shopId, access.shopId))
-    }
-    await tx.insert(tables.syncMutations).values({
-      clientId, mutationId: m.id, uuid: m.uuid, name: m.name, payloadHash: hash, status: outcome.status,
-      reason: outcome.reason?.slice(0, 500) ?? null, version: outcome.touched ? version : null, userId: access.userId,
-    })
-    await tx.update(tables.syncClients).set({ lmid: m.id, lastSeenAt: sql`CURRENT_TIMESTAMP(3)` }).where(eq(tables.syncClients.id, clientId))
-    return { id: m.id, status: outcome.status, ...(outcome.reason ? { reason: outcome.reason } : {}) } satisfies MutationResult
+    if (version !== startVersion) await tx.update(tables.shopVersions).set({ version }).where(eq(tables.shopVersions.shopId, access.shopId))
+    if (lmid !== startLmid) await tx.update(tables.syncClients).set({ lmid, lastSeenAt: sql`CURRENT_TIMESTAMP(3)` }).where(eq(tables.syncClients.id, clientId))
+    return results
   }))
 }
 
-export async function handlePush(access: { userId: string, shopId: string, role: Role }, body: PushBody): Promise<PushReply> {
+export async function handlePush(access: Access, body: PushBody): Promise<PushReply> {
   if (body.schemaVersion !== SYNC_SCHEMA_VERSION) {
     throw createError({ statusCode: 426, message: 'This version of the app is out of date. Reload to update; your changes stay on the device.' })
   }
@@ -87,12 +97,7 @@ export async function handlePush(access: { userId: string, shopId: string, role:
     await registerClient(body.clientId, access.userId, access.shopId)
     await ensureShopVersionRow(access.shopId)
   })
-  const results: MutationResult[] = []
-  for (const m of [...body.mutations].sort((a, b) => a.id - b.id)) {
-    const step = await applyOne(access, body.clientId, m)
-    if (step === 'gap') break
-    results.push(step)
-  }
+  const results = await applyBatch(access, body.clientId, [...body.mutations].sort((a, b) => a.id - b.id))
   const [client] = await withRetry(() => useDb().select({ lmid: tables.syncClients.lmid }).from(tables.syncClients).where(eq(tables.syncClients.id, body.clientId)))
   return { lmid: client?.lmid ?? 0, results }
 }

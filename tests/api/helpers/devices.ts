@@ -47,9 +47,8 @@ export interface Device {
   restart: () => Promise<void>
 }
 
-export async function device(http: Client, shopId: string, opts: { faults?: Faults, rand?: () => number, now?: () => Date, dbName?: string } = {}): Promise<Device> {
-  const me = await http.get('/api/auth/me')
-  const userId = me.body.user.id as string
+export async function device(http: Client, shopId: string, opts: { faults?: Faults, rand?: () => number, now?: () => Date, dbName?: string, userId?: string } = {}): Promise<Device> {
+  const userId = opts.userId ?? (await http.get('/api/auth/me')).body.user.id as string
   const db = new LocalDb(opts.dbName ?? `test-${process.pid}-${Date.now()}-${dbCounter++}`)
   const transport = transportFor(http, opts.faults ?? NO_FAULTS, opts.rand)
   const d: Device = {
