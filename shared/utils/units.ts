@@ -153,7 +153,9 @@ export function formatNumber(value: number, options: { digits?: number, trim?: b
   if (!Number.isFinite(value)) return '–'
   const digits = options.digits ?? 3
   const abs = Math.abs(value)
-  const magnitude = abs === 0 ? 0 : Math.floor(Math.log10(abs))
+  // Magnitude after rounding, so 0.99999 shows as "1.00", not "1.000".
+  const rounded = Number(abs.toPrecision(digits))
+  const magnitude = rounded === 0 ? 0 : Math.floor(Math.log10(rounded))
   const decimals = Math.max(0, digits - 1 - magnitude)
   // Round half away from zero on the decimal value typed, not its binary neighbour (9.975 -> 9.98).
   const scaled = Number((abs * 10 ** decimals).toPrecision(12))

@@ -105,7 +105,8 @@ describe('formatQuantity', () => {
   })
 
   it('moves to the larger prefix when rounding reaches 1000', () => {
-    expect(formatQuantity(0.9996, 'A')).toBe('1.000 A')
+    expect(formatQuantity(0.9996, 'A')).toBe('1.00 A')
+    expect(formatQuantity(10_000 * 100e-6, 's')).toBe('1.00 s')
     expect(formatQuantity(999.4, 'Ω')).toBe('999 Ω')
   })
 
