@@ -126,7 +126,7 @@ describe('Tube sorter', () => {
     expect(testid(w, 'unmatched').text()).toContain('A3 40.0 mA')
     expect(testid(w, 'unmatched').text()).toContain('A4 33.0 mA')
     expect(w.findAll('.tube-label')).toHaveLength(4)
-    expect(w.find('.tube-labels').text()).toContain('Set 1 of 2')
+    expect(w.find('.tube-labels').text()).toContain('Set 1 · pair')
   })
 
   it('names the line that could not be read', async () => {
