@@ -64,3 +64,9 @@ export const DEMO = {
   dana: 'dana@players.example',
   sam: 'sam@players.example',
 }
+
+/** Another shop for isolation tests: its owner's client, e-mail and shop id. */
+export async function ownerOfNewShop() {
+  const o = await newOwner('elsewhere')
+  return { client: o.c, email: o.email, shopId: o.shopId }
+}

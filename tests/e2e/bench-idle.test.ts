@@ -1,0 +1,71 @@
+import { mkdirSync } from 'node:fs'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { chromium } from 'playwright-core'
+import type { Browser, Page } from 'playwright-core'
+
+const BASE = (process.env.TW_TEST_URL ?? '').replace(/\/$/, '')
+const PASSWORD = process.env.TW_DEMO_PASSWORD ?? 'tubewright-demo'
+let browser: Browser
+
+beforeAll(async () => {
+  if (!BASE) throw new Error('TW_TEST_URL is not set: run through npm test (scripts/test.mjs).')
+  browser = await chromium.launch({
+    executablePath: '/usr/bin/chromium',
+    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+  })
+})
+
+afterAll(async () => {
+  await browser?.close()
+})
+
+async function signedInPage(theme: 'dark' | 'light'): Promise<Page> {
+  const context = await browser.newContext({ viewport: { width: 360, height: 800 }, deviceScaleFactor: 2 })
+  const page = await context.newPage()
+  const r = await page.request.post(`${BASE}/api/auth/login`, { data: { email: 'tech@larkspur.example', password: PASSWORD } })
+  expect(r.status()).toBe(200)
+  await page.goto(`${BASE}/bench/idle-dissipation?theme=${theme}`)
+  await page.waitForFunction(() => (window as unknown as { useNuxtApp?: () => { isHydrating: boolean } }).useNuxtApp?.()?.isHydrating === false)
+  return page
+}
+
+async function fillFixedPair(page: Page) {
+  await page.selectOption('#idle-tube', '6v6gta')
+  await page.getByRole('radio', { name: 'Fixed bias' }).click()
+  await page.fill('#idle-plate-volts', '285')
+  await page.getByRole('radio', { name: /^Current read directly/ }).click()
+  await page.fill('#idle-amps', '35 mA')
+}
+
+describe('Idle dissipation in a phone-sized browser', () => {
+  for (const theme of ['dark', 'light'] as const) {
+    it(`shows the band word and the plot for a fixed-bias 6V6 pair (${theme})`, async () => {
+      const page = await signedInPage(theme)
+      await fillFixedPair(page)
+      // Source: RCA RC-30 tube manual, 6V6GT typical operation: 285 V, 35 mA per tube -> 9.98 W, 71.3 % of 14 W
+      await expect.poll(() => page.textContent('[data-testid="band"]')).toContain('warm')
+      expect(await page.textContent('[data-testid="watts"]')).toBe('9.98 W')
+      expect(await page.textContent('[data-testid="percent"]')).toBe('71.3 %')
+      const plot = page.locator('svg[data-testid="idle-plot"]')
+      expect(await plot.getAttribute('aria-label')).toContain('285 V, 35.0 mA')
+      const box = await plot.boundingBox()
+      expect(box!.width).toBeGreaterThan(250)
+      expect(box!.width).toBeLessThanOrEqual(360)
+      // Nothing sideways: the page fits a 360 px phone.
+      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(360)
+      mkdirSync('tests/artifacts', { recursive: true })
+      await page.screenshot({ path: `tests/artifacts/bench-idle-${theme}.png`, fullPage: true })
+      await page.context().close()
+    })
+  }
+
+  it('keeps the inputs after a reload, on the device', async () => {
+    const page = await signedInPage('dark')
+    await fillFixedPair(page)
+    await page.reload()
+    await page.waitForFunction(() => (window as unknown as { useNuxtApp?: () => { isHydrating: boolean } }).useNuxtApp?.()?.isHydrating === false)
+    expect(await page.inputValue('#idle-amps')).toBe('35 mA')
+    await expect.poll(() => page.textContent('[data-testid="band"]')).toContain('warm')
+    await page.context().close()
+  })
+})
