@@ -45,6 +45,10 @@ export class SyncEngine {
     this.uuid = o.uuid ?? defaultUuid
   }
 
+  private viewTables() {
+    return VIEW_TABLES.map(t => this.db.table(t))
+  }
+
   /** The per-shop meta row; a new (or evicted) database gets a brand-new client id. */
   async meta(): Promise<MetaRow> {
     return this.db.transaction('rw', this.db.meta, async () => {
@@ -59,7 +63,7 @@ export class SyncEngine {
   /** Save one change on this device. Resolves once it is durable locally. */
   async mutate<N extends MutationName>(name: N, args: MutationArgs<N>, baseVersion?: number): Promise<OutboxRow> {
     const db = this.db
-    return db.transaction('rw', [db.meta, db.outbox, db.notes, db.measurements, db.conflicts], async () => {
+    return db.transaction('rw', [db.meta, db.outbox, ...this.viewTables()], async () => {
       const meta = await this.meta()
       await db.meta.update(this.shopId, { nextId: meta.nextId + 1 })
       const conflict = name === 'conflict.resolve' ? await db.conflicts.get((args as { id: string }).id) : undefined
@@ -144,7 +148,7 @@ export class SyncEngine {
 
   private async applyPull(reply: PullReply) {
     const db = this.db
-    await db.transaction('rw', [db.meta, db.server, db.outbox, db.notes, db.measurements, db.conflicts], async () => {
+    await db.transaction('rw', [db.meta, db.server, db.outbox, ...this.viewTables()], async () => {
       if (reply.reset) {
         await db.server.where('shopId').equals(this.shopId).delete()
         for (const t of VIEW_TABLES) await db.table(t).where('shopId').equals(this.shopId).delete()
@@ -184,7 +188,7 @@ export class SyncEngine {
   /** Rebuild the whole view from server rows and the outbox (after a restart). */
   async rebuild() {
     const db = this.db
-    await db.transaction('rw', [db.meta, db.server, db.outbox, db.notes, db.measurements, db.conflicts], async () => {
+    await db.transaction('rw', [db.meta, db.server, db.outbox, ...this.viewTables()], async () => {
       const meta = await this.meta()
       const serverKeys = (await db.server.where('shopId').equals(this.shopId).toArray()).map(s => key(s.table, s.id))
       const pending = await db.outbox.where('shopId').equals(this.shopId).sortBy('id')

@@ -1,6 +1,8 @@
 // The on-device database: one per signed-in user. Plain Dexie, no Vue, so tests run it in node.
 import Dexie, { type Table } from 'dexie'
 import type { MutationName, SyncedTable } from '../../../shared/utils/sync/protocol'
+import type { EntityFields, EntityTable } from '../../../shared/utils/sync/entities'
+import type { JobState } from '../../../shared/utils/jobs/states'
 
 export const LOCAL_DB_PREFIX = 'tubewright-'
 export const localDbName = (userId: string) => `${LOCAL_DB_PREFIX}${userId}`
@@ -50,6 +52,7 @@ export interface NoteRow extends ViewBase {
   jobId: string | null
   title: string
   body: string
+  visibility: 'internal' | 'customer'
   authorId: string
   createdAt: string
   updatedAt: string
@@ -81,6 +84,39 @@ export interface ConflictRow extends ViewBase {
   note: string | null
 }
 
+/** A field-versioned record (customer, amp, job, part, labour) as this device sees it. */
+export type EntityRow<T extends EntityTable> = ViewBase & EntityFields<T> & {
+  createdBy: string
+  updatedBy: string | null
+  createdAt: string
+  updatedAt: string
+}
+
+export interface JobEventRow extends ViewBase {
+  jobId: string
+  from: JobState | null
+  to: JobState
+  by: string
+  at: string
+}
+
+export interface InvoiceRow extends ViewBase {
+  jobId: string
+  number: number
+  kind: 'estimate' | 'invoice'
+  state: 'draft' | 'sent' | 'paid' | 'void'
+  lines: { kind: 'part' | 'labour', description: string, quantity: number, unitCents: number, totalCents: number }[]
+  partsCents: number
+  labourCents: number
+  subtotalCents: number
+  taxRateBasisPoints: number
+  taxCents: number
+  totalCents: number
+  currency: string
+  issuedAt: string | null
+  paidAt: string | null
+}
+
 export interface RejectionRow {
   seq?: number
   shopId: string
@@ -110,6 +146,13 @@ export class LocalDb extends Dexie {
   conflicts!: Table<ConflictRow, string>
   rejections!: Table<RejectionRow, number>
   blobs!: Table<BlobRow, string>
+  customers!: Table<EntityRow<'customers'>, string>
+  amps!: Table<EntityRow<'amps'>, string>
+  jobs!: Table<EntityRow<'jobs'>, string>
+  jobParts!: Table<EntityRow<'jobParts'>, string>
+  jobLabour!: Table<EntityRow<'jobLabour'>, string>
+  jobEvents!: Table<JobEventRow, string>
+  invoices!: Table<InvoiceRow, string>
 
   constructor(name: string) {
     super(name)
@@ -123,7 +166,17 @@ export class LocalDb extends Dexie {
       rejections: '++seq, shopId, uuid',
       blobs: 'sha256, shopId, status',
     })
+    // Jobs and what hangs off them.
+    this.version(2).stores({
+      customers: 'id, shopId, name, email, playerUserId',
+      amps: 'id, shopId, customerId, serial',
+      jobs: 'id, shopId, customerId, ampId, status, assignedTo, updatedAt',
+      jobParts: 'id, shopId, jobId',
+      jobLabour: 'id, shopId, jobId',
+      jobEvents: 'id, shopId, jobId',
+      invoices: 'id, shopId, jobId',
+    })
   }
 }
 
-export const VIEW_TABLES = ['notes', 'measurements', 'conflicts'] as const
+export const VIEW_TABLES = ['notes', 'measurements', 'conflicts', 'customers', 'amps', 'jobs', 'jobParts', 'jobLabour', 'jobEvents', 'invoices'] as const

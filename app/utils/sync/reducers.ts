@@ -1,9 +1,10 @@
 // How a pending change looks on this device before the server confirms it, and how a
 // server row becomes a view row. Pure functions, replayed on top of server rows (rebase).
 import type { SyncedTable } from '../../../shared/utils/sync/protocol'
-import type { ConflictRow, MeasurementRow, NoteRow, OutboxRow, ServerRow } from './local-db'
+import type { ConflictRow, EntityRow, InvoiceRow, JobEventRow, MeasurementRow, NoteRow, OutboxRow, ServerRow } from './local-db'
+import { ENTITY_DEFAULTS, entityOf, type EntityTable } from '../../../shared/utils/sync/entities'
 
-export type ViewRow = NoteRow | MeasurementRow | ConflictRow
+export type ViewRow = NoteRow | MeasurementRow | ConflictRow | EntityRow<EntityTable> | JobEventRow | InvoiceRow
 export const key = (table: SyncedTable, id: string) => `${table}:${id}`
 
 export function serverToView(s: ServerRow): ViewRow {
@@ -11,7 +12,11 @@ export function serverToView(s: ServerRow): ViewRow {
   const d = (s.data ?? {}) as Record<string, any>
   const base = { id: s.id, shopId: s.shopId, version: s.version, deleted: s.deleted, pending: 0 }
   if (s.table === 'notes') {
-    return { ...base, jobId: d.jobId ?? null, title: d.title ?? '', body: d.body ?? '', authorId: d.authorId, createdAt: d.createdAt, updatedAt: d.updatedAt } satisfies NoteRow
+    return { ...base, jobId: d.jobId ?? null, title: d.title ?? '', body: d.body ?? '', visibility: d.visibility ?? 'internal', authorId: d.authorId, createdAt: d.createdAt, updatedAt: d.updatedAt } satisfies NoteRow
+  }
+  if (s.table !== 'conflicts' && s.table !== 'measurements') {
+    const { fieldVersions: _fv, deletedAt: _d, ...rest } = d
+    return { ...rest, ...base } as ViewRow
   }
   if (s.table === 'measurements') {
     return { ...base, jobId: d.jobId ?? null, rigId: d.rigId ?? null, tool: d.tool, inputs: d.inputs, outputs: d.outputs, engineVersion: d.engineVersion, label: d.label ?? null, authorId: d.authorId, createdAt: d.createdAt } satisfies MeasurementRow
@@ -36,10 +41,12 @@ export function reduce(table: SyncedTable, row: ViewRow | undefined, m: OutboxRo
   const a = m.args as Record<string, any>
   const at = m.createdAt
   const bump = <T extends ViewRow>(r: T, patch: Partial<T>): T => ({ ...r, ...patch, pending: r.pending + 1 })
+  const entity = entityOf(m.name)
+  if (entity) return reduceEntity(entity.table, entity.verb, row, a, at, ctx)
   switch (m.name) {
     case 'note.create':
       if (row) return bump(row as NoteRow, {})
-      return { id: a.id, shopId: ctx.shopId, version: 0, deleted: false, pending: 1, jobId: a.jobId ?? null, title: a.title ?? '', body: a.body, authorId: ctx.userId, createdAt: at, updatedAt: at } satisfies NoteRow
+      return { id: a.id, shopId: ctx.shopId, version: 0, deleted: false, pending: 1, jobId: a.jobId ?? null, title: a.title ?? '', body: a.body, visibility: a.visibility ?? 'internal', authorId: ctx.userId, createdAt: at, updatedAt: at } satisfies NoteRow
     case 'note.setFields': {
       if (!row) return row
       const fields = Object.fromEntries(Object.entries(a.fields ?? {}).filter(([, v]) => v !== undefined))
@@ -67,7 +74,28 @@ export function reduce(table: SyncedTable, row: ViewRow | undefined, m: OutboxRo
 /** The records a change touches, as `table:id` keys. */
 export function targetsOf(m: Pick<OutboxRow, 'name' | 'args'>, conflict?: ConflictRow): string[] {
   const id = String((m.args as { id: string }).id)
+  const entity = entityOf(m.name)
+  if (entity) return [key(entity.table, id)]
   if (m.name.startsWith('note.')) return [key('notes', id)]
   if (m.name.startsWith('measurement.')) return [key('measurements', id)]
   return conflict ? [key('conflicts', id), key(conflict.tableName, conflict.rowId)] : [key('conflicts', id)]
+}
+
+function reduceEntity(table: EntityTable, verb: 'create' | 'setFields' | 'delete' | 'restore', row: ViewRow | undefined, a: Record<string, unknown>, at: string, ctx: ReduceContext): ViewRow | undefined {
+  const bump = (patch: Record<string, unknown>) => (row ? ({ ...row, ...patch, pending: row.pending + 1 } as ViewRow) : row)
+  switch (verb) {
+    case 'create': {
+      if (row) return bump({})
+      const { id, ...fields } = a
+      return { ...ENTITY_DEFAULTS[table], ...fields, id: String(id), shopId: ctx.shopId, version: 0, deleted: false, pending: 1, createdBy: ctx.userId, updatedBy: ctx.userId, createdAt: at, updatedAt: at } as unknown as ViewRow
+    }
+    case 'setFields': {
+      const fields = Object.fromEntries(Object.entries((a.fields ?? {}) as Record<string, unknown>).filter(([, v]) => v !== undefined))
+      return bump({ ...fields, updatedAt: at, updatedBy: ctx.userId })
+    }
+    case 'delete':
+      return bump({ deleted: true })
+    case 'restore':
+      return bump({ deleted: false })
+  }
 }

@@ -1,4 +1,4 @@
-import { bigint, index, json, mysqlTable, text, varchar } from 'drizzle-orm/mysql-core'
+import { bigint, index, json, mysqlEnum, mysqlTable, text, varchar } from 'drizzle-orm/mysql-core'
 import { sql } from 'drizzle-orm'
 import { stamp, uuid } from './columns'
 
@@ -19,6 +19,8 @@ export const notes = mysqlTable('notes', {
   jobId: uuid('job_id'),
   title: varchar('title', { length: 200 }).notNull().default(''),
   body: text('body').notNull(),
+  // Job notes: internal to the shop, or shown to the customer.
+  visibility: mysqlEnum('visibility', ['internal', 'customer']).notNull().default('internal'),
   fieldStamps: json('field_stamps').$type<FieldStamps>().notNull(),
   updatedBy: uuid('updated_by'),
   ...syncColumns(),

@@ -4,7 +4,7 @@ import type { MutationArgs } from '#shared/utils/sync/protocol'
 import { isStaff, reject, type ApplyContext, type ApplyOutcome } from './context'
 import { recordConflict } from './conflicts'
 
-const NOTE_FIELDS = ['body', 'title'] as const
+const NOTE_FIELDS = ['body', 'title', 'visibility'] as const
 
 async function lockNote(ctx: ApplyContext, id: string) {
   const [row] = await ctx.tx.select().from(tables.notes)
@@ -37,7 +37,8 @@ export async function noteCreate(ctx: ApplyContext, a: MutationArgs<'note.create
     jobId: a.jobId,
     title: a.title ?? '',
     body: a.body,
-    fieldStamps: { body: stamp, title: stamp },
+    visibility: a.visibility ?? 'internal',
+    fieldStamps: { body: stamp, title: stamp, visibility: stamp },
     version: ctx.version,
     createdAt: ctx.now,
     updatedAt: ctx.now,
@@ -57,13 +58,13 @@ export async function noteSetFields(ctx: ApplyContext, a: MutationArgs<'note.set
   }
   const stamps = { ...row.fieldStamps }
   const clashing = new Set(changedByOthers(ctx, stamps, fields))
-  const set: Partial<Record<(typeof NOTE_FIELDS)[number], string>> = {}
+  const set: Partial<{ body: string, title: string, visibility: 'internal' | 'customer' }> = {}
   for (const f of fields) {
     if (clashing.has(f)) {
       await recordConflict(ctx, { tableName: 'notes', rowId: row.id, field: f, serverValue: row[f], clientValue: a.fields[f], serverAuthor: stamps[f]!.u, serverChangedAt: new Date(stamps[f]!.at) })
     }
     else {
-      set[f] = a.fields[f]!
+      Object.assign(set, { [f]: a.fields[f] })
       stamps[f] = stampFor(ctx)
     }
   }
@@ -101,7 +102,8 @@ export async function resolveNoteField(ctx: ApplyContext, rowId: string, field: 
     else await ctx.tx.update(tables.notes).set({ version: ctx.version }).where(eq(tables.notes.id, rowId))
     return
   }
-  if (field !== 'body' && field !== 'title') reject('unknown field')
+  if (field !== 'body' && field !== 'title' && field !== 'visibility') reject('unknown field')
+  if (field === 'visibility' && value !== 'internal' && value !== 'customer') reject('visibility must be internal or customer')
   if (typeof value !== 'string' || value.length > (field === 'body' ? 20_000 : 200)) reject(`${field} must be text`)
   const stamps = { ...row.fieldStamps, [field]: stampFor(ctx) }
   await ctx.tx.update(tables.notes).set({ [field]: value, fieldStamps: stamps, deletedAt: null, version: ctx.version, updatedAt: ctx.now, updatedBy: ctx.userId })

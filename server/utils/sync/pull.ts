@@ -1,4 +1,7 @@
-import { and, asc, eq, gt, lte, or, type SQL } from 'drizzle-orm'
+import { createHash } from 'node:crypto'
+import { and, asc, eq, gt, inArray, isNull, lte, or, type SQL } from 'drizzle-orm'
+import { ENTITY_FIELDS, ENTITY_TABLES, type EntityTable } from '#shared/utils/sync/entities'
+import { ENTITY_POLICIES } from './entity-policies'
 import { PULL_PAGE_SIZE, SYNC_SCHEMA_VERSION, type PullBody, type PullReply, type RowChange, type SyncedTable } from '#shared/utils/sync/protocol'
 import type { Role } from '#shared/utils/roles'
 import type { Tx } from '../db'
@@ -6,7 +9,7 @@ import { isStaff } from './context'
 import { withRetry } from './errors'
 import { registerClient } from './push'
 
-interface Cookie { v: number, s: number, r: string, m: number }
+interface Cookie { v: number, s: number, r: string, m: number, p?: string }
 
 function readCookie(raw: string | null): Cookie | null {
   if (!raw) return null
@@ -23,26 +26,87 @@ const writeCookie = (c: Cookie) => Buffer.from(JSON.stringify(c)).toString('base
 const iso = (d: Date | null) => (d ? d.toISOString() : null)
 
 type Access = { userId: string, shopId: string, role: Role }
+/** What a player may see: their linked customer records and those customers' jobs. */
+interface Scope { customerIds: string[], jobIds: string[] }
 
-async function readNotes(tx: Tx, a: Access, from: number, to: number): Promise<RowChange[]> {
+const NONE = '00000000-0000-0000-0000-000000000000'
+const inIds = (col: Parameters<typeof inArray>[0], ids: string[]) => inArray(col, ids.length ? ids : [NONE])
+
+async function playerScope(tx: Tx, a: Access): Promise<Scope | null> {
+  if (isStaff(a.role)) return null
+  const cs = await tx.select({ id: tables.customers.id }).from(tables.customers)
+    .where(and(eq(tables.customers.shopId, a.shopId), eq(tables.customers.playerUserId, a.userId), isNull(tables.customers.deletedAt)))
+  const customerIds = cs.map(c => c.id)
+  const js = await tx.select({ id: tables.jobs.id }).from(tables.jobs).where(and(eq(tables.jobs.shopId, a.shopId), inIds(tables.jobs.customerId, customerIds)))
+  return { customerIds, jobIds: js.map(j => j.id) }
+}
+
+async function readEntities(tx: Tx, a: Access, scope: Scope | null, table: EntityTable, from: number, to: number): Promise<RowChange[]> {
+  const t = ENTITY_POLICIES[table].table
+  let mine: SQL | undefined
+  if (scope) {
+    mine = table === 'customers' ? inIds(t.id, scope.customerIds)
+      : table === 'amps' ? inIds(t.customerId, scope.customerIds)
+        : table === 'jobs' ? inIds(t.id, scope.jobIds)
+          : inIds(t.jobId, scope.jobIds)
+  }
+  const rows = await tx.select().from(t)
+    .where(and(eq(t.shopId, a.shopId), gt(t.version, from), lte(t.version, to), mine))
+    .orderBy(asc(t.version)).limit(PULL_PAGE_SIZE + 1) as (Record<string, unknown> & { id: string, version: number, deletedAt: Date | null, fieldStamps: Record<string, { v: number }> })[]
+  const keys = Object.keys(ENTITY_FIELDS[table].shape)
+  return rows.map(r => ({
+    table, id: r.id, version: r.version, deleted: !!r.deletedAt,
+    data: {
+      ...Object.fromEntries(keys.map(k => [k, r[k]])),
+      createdBy: r.createdBy, updatedBy: r.updatedBy,
+      createdAt: iso(r.createdAt as Date), updatedAt: iso(r.updatedAt as Date), deletedAt: iso(r.deletedAt),
+      fieldVersions: Object.fromEntries(Object.entries(r.fieldStamps).map(([k, s]) => [k, s.v])),
+    },
+  }))
+}
+
+async function readJobEvents(tx: Tx, a: Access, scope: Scope | null, from: number, to: number): Promise<RowChange[]> {
+  const t = tables.jobEvents
+  const rows = await tx.select().from(t)
+    .where(and(eq(t.shopId, a.shopId), gt(t.version, from), lte(t.version, to), scope ? inIds(t.jobId, scope.jobIds) : undefined))
+    .orderBy(asc(t.version)).limit(PULL_PAGE_SIZE + 1)
+  return rows.map(r => ({ table: 'jobEvents', id: r.id, version: r.version, deleted: false, data: { jobId: r.jobId, from: r.fromStatus, to: r.toStatus, by: r.byUser, at: iso(r.at) } }))
+}
+
+async function readInvoices(tx: Tx, a: Access, scope: Scope | null, from: number, to: number): Promise<RowChange[]> {
+  const t = tables.invoices
+  const rows = await tx.select().from(t)
+    .where(and(eq(t.shopId, a.shopId), gt(t.version, from), lte(t.version, to), scope ? inIds(t.jobId, scope.jobIds) : undefined))
+    .orderBy(asc(t.version)).limit(PULL_PAGE_SIZE + 1)
+  return rows.map(r => ({
+    table: 'invoices', id: r.id, version: r.version, deleted: r.state === 'void',
+    data: {
+      jobId: r.jobId, number: r.number, kind: r.kind, state: r.state, lines: r.lines, partsCents: r.partsCents, labourCents: r.labourCents,
+      subtotalCents: r.subtotalCents, taxRateBasisPoints: r.taxRateBasisPoints, taxCents: r.taxCents, totalCents: r.totalCents,
+      currency: r.currency, issuedAt: iso(r.issuedAt), paidAt: iso(r.paidAt), createdAt: iso(r.createdAt),
+    },
+  }))
+}
+
+async function readNotes(tx: Tx, a: Access, scope: Scope | null, from: number, to: number): Promise<RowChange[]> {
   const t = tables.notes
-  const mine: SQL | undefined = isStaff(a.role) ? undefined : eq(t.authorId, a.userId)
+  const mine: SQL | undefined = scope ? or(eq(t.authorId, a.userId), and(inIds(t.jobId, scope.jobIds), eq(t.visibility, 'customer'))) : undefined
   const rows = await tx.select().from(t)
     .where(and(eq(t.shopId, a.shopId), gt(t.version, from), lte(t.version, to), mine))
     .orderBy(asc(t.version)).limit(PULL_PAGE_SIZE + 1)
   return rows.map(r => ({
     table: 'notes', id: r.id, version: r.version, deleted: !!r.deletedAt,
     data: {
-      jobId: r.jobId, title: r.title, body: r.body, authorId: r.authorId, updatedBy: r.updatedBy,
+      jobId: r.jobId, title: r.title, body: r.body, visibility: r.visibility, authorId: r.authorId, updatedBy: r.updatedBy,
       createdAt: iso(r.createdAt), updatedAt: iso(r.updatedAt), deletedAt: iso(r.deletedAt),
       fieldVersions: Object.fromEntries(Object.entries(r.fieldStamps).map(([k, s]) => [k, s.v])),
     },
   }))
 }
 
-async function readMeasurements(tx: Tx, a: Access, from: number, to: number): Promise<RowChange[]> {
+async function readMeasurements(tx: Tx, a: Access, scope: Scope | null, from: number, to: number): Promise<RowChange[]> {
   const t = tables.measurements
-  const mine = isStaff(a.role) ? undefined : eq(t.authorId, a.userId)
+  const mine = scope ? or(eq(t.authorId, a.userId), inIds(t.jobId, scope.jobIds)) : undefined
   const rows = await tx.select().from(t)
     .where(and(eq(t.shopId, a.shopId), gt(t.version, from), lte(t.version, to), mine))
     .orderBy(asc(t.version)).limit(PULL_PAGE_SIZE + 1)
@@ -81,12 +145,21 @@ export async function handlePull(access: Access & { memberSince: number }, body:
     const [client] = await tx.select({ lmid: tables.syncClients.lmid }).from(tables.syncClients).where(eq(tables.syncClients.id, body.clientId))
     const current = shop?.version ?? 0
     const cookie = readCookie(body.cookie)
-    // A new role or membership changes what this user may see: start over.
+    const scope = await playerScope(tx, access)
+    const scopeKey = scope ? createHash('sha256').update(scope.customerIds.sort().join(',')).digest('hex').slice(0, 16) : ''
+    // A new role, membership or linked customer changes what this user may see: start over.
     const reset = !cookie || cookie.s !== SYNC_SCHEMA_VERSION || cookie.r !== access.role || cookie.m !== access.memberSince
-      || cookie.v < (shop?.horizon ?? 0) || cookie.v > current
+      || (cookie.p ?? '') !== scopeKey || cookie.v < (shop?.horizon ?? 0) || cookie.v > current
     const from = reset ? 0 : cookie!.v
 
-    const parts = await Promise.all([readNotes(tx, access, from, current), readMeasurements(tx, access, from, current), readConflicts(tx, access, from, current)])
+    const parts = await Promise.all([
+      readNotes(tx, access, scope, from, current),
+      readMeasurements(tx, access, scope, from, current),
+      readConflicts(tx, access, from, current),
+      ...ENTITY_TABLES.map(t => readEntities(tx, access, scope, t, from, current)),
+      readJobEvents(tx, access, scope, from, current),
+      readInvoices(tx, access, scope, from, current),
+    ])
     const all = parts.flat().sort((x, y) => x.version - y.version)
     let upTo = current
     let more = false
@@ -106,7 +179,7 @@ export async function handlePull(access: Access & { memberSince: number }, body:
     if (upTo <= from && all.length) upTo = all[0]!.version
     const changes = all.filter(c => c.version <= upTo)
     return {
-      cookie: writeCookie({ v: upTo, s: SYNC_SCHEMA_VERSION, r: access.role, m: access.memberSince }),
+      cookie: writeCookie({ v: upTo, s: SYNC_SCHEMA_VERSION, r: access.role, m: access.memberSince, p: scopeKey }),
       lmid: client?.lmid ?? 0,
       reset,
       more,

@@ -1,6 +1,7 @@
 // The sync wire protocol: push and pull bodies, mutation names and their arguments.
 import { z } from 'zod'
 import { BENCH_TOOL_IDS } from '../bench/tool-schemas'
+import { ENTITY_MUTATIONS, ENTITY_TABLES, entityOf, type EntityTable } from './entities'
 
 /** Bumped when a mutation's arguments or a table's shape change incompatibly. */
 export const SYNC_SCHEMA_VERSION = 1
@@ -10,12 +11,14 @@ export const MAX_PUSH_MUTATIONS = 500
 const id = z.uuid({ message: 'must be an id' })
 const noteText = z.string().max(20_000, { message: 'at most 20,000 characters' })
 const noteTitle = z.string().max(200, { message: 'at most 200 characters' })
+export const NOTE_VISIBILITY = ['internal', 'customer'] as const
+const visibility = z.enum(NOTE_VISIBILITY)
 
 export const MUTATION_ARGS = {
-  'note.create': z.object({ id, jobId: id.nullable(), body: noteText, title: noteTitle.optional() }),
+  'note.create': z.object({ id, jobId: id.nullable(), body: noteText, title: noteTitle.optional(), visibility: visibility.optional() }),
   'note.setFields': z.object({
     id,
-    fields: z.object({ body: noteText.optional(), title: noteTitle.optional() }).refine(f => Object.keys(f).length > 0, { message: 'change at least one field' }),
+    fields: z.object({ body: noteText.optional(), title: noteTitle.optional(), visibility: visibility.optional() }).refine(f => Object.keys(f).length > 0, { message: 'change at least one field' }),
   }),
   'note.delete': z.object({ id }),
   'note.restore': z.object({ id }),
@@ -31,6 +34,7 @@ export const MUTATION_ARGS = {
   }),
   'measurement.delete': z.object({ id }),
   'conflict.resolve': z.object({ id, value: z.unknown() }),
+  ...ENTITY_MUTATIONS,
 } as const
 
 export type MutationName = keyof typeof MUTATION_ARGS
@@ -74,7 +78,10 @@ export const pullBodySchema = z.object({
 })
 export type PullBody = z.infer<typeof pullBodySchema>
 
-export type SyncedTable = 'notes' | 'measurements' | 'conflicts'
+/** Server-written tables the client only reads. */
+export const READ_ONLY_TABLES = ['jobEvents', 'invoices'] as const
+export type SyncedTable = 'notes' | 'measurements' | 'conflicts' | EntityTable | (typeof READ_ONLY_TABLES)[number]
+export const SYNCED_TABLES: readonly SyncedTable[] = ['notes', 'measurements', 'conflicts', ...ENTITY_TABLES, ...READ_ONLY_TABLES]
 export interface RowChange {
   table: SyncedTable
   id: string
@@ -94,6 +101,7 @@ export function canonicalJson(value: unknown): string {
 
 /** Which record a mutation touches (for rebasing the optimistic view). */
 export function mutationTarget(name: MutationName, args: { id: string }): { table: SyncedTable, id: string } {
-  const table: SyncedTable = name.startsWith('note.') ? 'notes' : name.startsWith('measurement.') ? 'measurements' : 'conflicts'
+  const entity = entityOf(name)
+  const table: SyncedTable = entity ? entity.table : name.startsWith('note.') ? 'notes' : name.startsWith('measurement.') ? 'measurements' : 'conflicts'
   return { table, id: args.id }
 }

@@ -1,0 +1,116 @@
+import { and, eq } from 'drizzle-orm'
+import { ENTITY_FIELDS, parseEntityCreate, type EntityTable } from '#shared/utils/sync/entities'
+import type { FieldStamps } from '../../db/schema/notebook'
+import { reject, type ApplyContext, type ApplyOutcome } from './context'
+import { recordConflict } from './conflicts'
+import { ENTITY_POLICIES } from './entity-policies'
+
+const stampFor = (ctx: ApplyContext) => ({ v: ctx.version, c: ctx.clientId, u: ctx.userId, at: ctx.now.toISOString() })
+
+function allowed(ctx: ApplyContext, roles: readonly string[], verb: string, table: EntityTable) {
+  if (!roles.includes(ctx.role)) reject(`your role may not ${verb} ${table}`)
+}
+
+async function lock(ctx: ApplyContext, table: EntityTable, id: string) {
+  const t = ENTITY_POLICIES[table].table
+  const [row] = await ctx.tx.select().from(t).where(and(eq(t.id, id), eq(t.shopId, ctx.shopId))).for('update')
+  if (!row) reject(`${table} record not found`)
+  return row as Record<string, unknown> & { id: string, fieldStamps: FieldStamps, deletedAt: Date | null, updatedBy: string | null, updatedAt: Date }
+}
+
+export async function entityCreate(ctx: ApplyContext, table: EntityTable, args: { id: string } & Record<string, unknown>): Promise<ApplyOutcome> {
+  const policy = ENTITY_POLICIES[table]
+  allowed(ctx, policy.create, 'create', table)
+  const parsed = parseEntityCreate(table, args)
+  if (!parsed.success) reject(zodMessage(parsed.error))
+  const fields = parsed.data as Record<string, unknown>
+  const t = policy.table
+  const [existing] = await ctx.tx.select({ id: t.id }).from(t).where(eq(t.id, args.id))
+  if (existing) reject('a record with this id already exists')
+  const next = { ...fields, id: args.id }
+  await policy.check?.(ctx, next)
+  const stamp = stampFor(ctx)
+  await ctx.tx.insert(t).values({
+    ...fields, id: args.id, shopId: ctx.shopId, version: ctx.version, createdBy: ctx.userId, updatedBy: ctx.userId,
+    createdAt: ctx.now, updatedAt: ctx.now, fieldStamps: Object.fromEntries(Object.keys(fields).map(k => [k, stamp])),
+  })
+  await policy.after?.(ctx, next)
+  return { status: 'applied', touched: true }
+}
+
+export async function entitySetFields(ctx: ApplyContext, table: EntityTable, args: { id: string, fields: Record<string, unknown> }): Promise<ApplyOutcome> {
+  const policy = ENTITY_POLICIES[table]
+  allowed(ctx, policy.update, 'change', table)
+  const row = await lock(ctx, table, args.id)
+  const keys = Object.keys(args.fields).filter(k => args.fields[k] !== undefined && k in ENTITY_FIELDS[table].shape)
+  if (row.deletedAt) {
+    for (const k of keys) {
+      await recordConflict(ctx, { tableName: table, rowId: row.id, field: k, serverValue: null, clientValue: args.fields[k], serverAuthor: row.updatedBy, serverChangedAt: row.deletedAt, note: 'edited after it was deleted' })
+    }
+    return { status: 'conflict', touched: true, reason: 'the record was deleted' }
+  }
+  const base = ctx.baseVersion ?? 0
+  const stamps = { ...row.fieldStamps }
+  const clashing = keys.filter(k => stamps[k] && stamps[k]!.v > base && stamps[k]!.c !== ctx.clientId)
+  const set: Record<string, unknown> = {}
+  for (const k of keys) {
+    if (!clashing.includes(k)) {
+      set[k] = args.fields[k]
+      stamps[k] = stampFor(ctx)
+    }
+  }
+  const next = { ...row, ...set }
+  await policy.check?.(ctx, next, row as never)
+  for (const k of clashing) {
+    await recordConflict(ctx, { tableName: table, rowId: row.id, field: k, serverValue: row[k], clientValue: args.fields[k], serverAuthor: stamps[k]!.u, serverChangedAt: new Date(stamps[k]!.at) })
+  }
+  await ctx.tx.update(policy.table).set({ ...set, fieldStamps: stamps, version: ctx.version, updatedAt: ctx.now, updatedBy: ctx.userId })
+    .where(eq(policy.table.id, row.id))
+  await policy.after?.(ctx, next, row as never)
+  return clashing.length
+    ? { status: 'conflict', touched: true, reason: `changed by someone else: ${clashing.join(', ')}` }
+    : { status: 'applied', touched: true }
+}
+
+export async function entityDelete(ctx: ApplyContext, table: EntityTable, args: { id: string }): Promise<ApplyOutcome> {
+  const policy = ENTITY_POLICIES[table]
+  allowed(ctx, policy.remove, 'delete', table)
+  const row = await lock(ctx, table, args.id)
+  if (row.deletedAt) return { status: 'applied', touched: true }
+  const base = ctx.baseVersion ?? 0
+  const clashing = Object.entries(row.fieldStamps).filter(([, s]) => s.v > base && s.c !== ctx.clientId).map(([k]) => k)
+  if (clashing.length) {
+    await recordConflict(ctx, { tableName: table, rowId: row.id, field: '_delete', serverValue: null, clientValue: true, serverAuthor: row.updatedBy, serverChangedAt: row.updatedAt, note: 'deleted after someone else edited it' })
+    await ctx.tx.update(policy.table).set({ version: ctx.version }).where(eq(policy.table.id, row.id))
+    return { status: 'conflict', touched: true, reason: 'edited by someone else since you last saw it' }
+  }
+  await ctx.tx.update(policy.table).set({ deletedAt: ctx.now, version: ctx.version, updatedBy: ctx.userId }).where(eq(policy.table.id, row.id))
+  return { status: 'applied', touched: true }
+}
+
+export async function entityRestore(ctx: ApplyContext, table: EntityTable, args: { id: string }): Promise<ApplyOutcome> {
+  const policy = ENTITY_POLICIES[table]
+  allowed(ctx, policy.remove, 'restore', table)
+  const row = await lock(ctx, table, args.id)
+  await ctx.tx.update(policy.table).set({ deletedAt: null, version: ctx.version, updatedBy: ctx.userId }).where(eq(policy.table.id, row.id))
+  return { status: 'applied', touched: true }
+}
+
+/** A person's decision on an entity field conflict. */
+export async function resolveEntityField(ctx: ApplyContext, table: EntityTable, rowId: string, field: string, value: unknown) {
+  const policy = ENTITY_POLICIES[table]
+  allowed(ctx, policy.update, 'change', table)
+  const row = await lock(ctx, table, rowId)
+  if (field === '_delete') {
+    await ctx.tx.update(policy.table).set({ deletedAt: value === true ? ctx.now : null, version: ctx.version }).where(eq(policy.table.id, rowId))
+    return
+  }
+  const shape = ENTITY_FIELDS[table].shape as Record<string, { safeParse: (v: unknown) => { success: boolean } }>
+  if (!shape[field]) reject('unknown field')
+  if (!shape[field]!.safeParse(value).success) reject(`${field}: not a valid value`)
+  const next = { ...row, [field]: value }
+  await policy.check?.(ctx, next, row as never)
+  await ctx.tx.update(policy.table).set({ [field]: value, fieldStamps: { ...row.fieldStamps, [field]: stampFor(ctx) }, deletedAt: null, version: ctx.version, updatedAt: ctx.now, updatedBy: ctx.userId })
+    .where(eq(policy.table.id, rowId))
+  await policy.after?.(ctx, next, row as never)
+}

@@ -1,0 +1,119 @@
+// Synced records edited field by field (customers, amps, jobs, parts, labour). Each gets
+// `<prefix>.create`, `.setFields` (with baseVersion), `.delete` and `.restore` mutations.
+import { z } from 'zod'
+import { JOB_PRIORITIES, JOB_STATES } from '../jobs/states'
+
+const id = z.uuid({ message: 'must be an id' })
+const text = (max: number) => z.string().trim().max(max, { message: `at most ${max} characters` })
+const cents = z.number().int({ message: 'must be whole cents' }).min(0).max(100_000_000)
+const sha256 = z.string().regex(/^[0-9a-f]{64}$/, { message: 'must be a photo hash' })
+
+export const ENTITY_FIELDS = {
+  customers: z.object({
+    name: text(120).min(1, { message: 'enter a name' }),
+    email: z.union([z.literal(''), z.email({ message: 'enter a valid e-mail address' })]),
+    phone: text(40),
+    notes: text(2000),
+    playerUserId: id.nullable(),
+  }),
+  amps: z.object({
+    customerId: id,
+    description: text(200).min(1, { message: 'describe the amp' }),
+    serial: text(80),
+    tubeComplement: text(120),
+    powerTubeCount: z.number().int().min(0).max(16),
+    biasMode: z.enum(['fixed', 'cathode']),
+    rectifier: text(60),
+    notes: text(2000),
+  }),
+  jobs: z.object({
+    customerId: id,
+    ampId: id,
+    complaint: text(4000).min(1, { message: 'say what the customer reports' }),
+    accessories: text(500),
+    photos: z.array(sha256).max(20),
+    promisedFor: z.union([z.literal(''), z.iso.date({ message: 'use a date like 2026-12-08' })]),
+    assignedTo: id.nullable(),
+    priority: z.enum(JOB_PRIORITIES),
+    status: z.enum(JOB_STATES),
+  }),
+  jobParts: z.object({
+    jobId: id,
+    description: text(200).min(1, { message: 'describe the part' }),
+    quantity: z.number().positive().max(10_000),
+    unitCostCents: cents,
+    unitPriceCents: cents,
+  }),
+  jobLabour: z.object({
+    jobId: id,
+    description: text(200),
+    minutes: z.number().int().positive().max(100_000),
+    rateCents: cents,
+    techId: id.nullable(),
+  }),
+} as const
+
+export type EntityTable = keyof typeof ENTITY_FIELDS
+export type EntityFields<T extends EntityTable> = z.infer<(typeof ENTITY_FIELDS)[T]>
+
+export const ENTITY_PREFIX = {
+  customers: 'customer',
+  amps: 'amp',
+  jobs: 'job',
+  jobParts: 'jobPart',
+  jobLabour: 'jobLabour',
+} as const satisfies Record<EntityTable, string>
+
+type Prefix<T extends EntityTable> = (typeof ENTITY_PREFIX)[T]
+
+/** Fields a create may leave out, with their defaults. */
+export const ENTITY_DEFAULTS: { [T in EntityTable]: Partial<EntityFields<T>> } = {
+  customers: { email: '', phone: '', notes: '', playerUserId: null },
+  amps: { serial: '', tubeComplement: '', powerTubeCount: 2, biasMode: 'fixed', rectifier: '', notes: '' },
+  jobs: { accessories: '', photos: [], promisedFor: '', assignedTo: null, priority: 'normal', status: 'checked-in' },
+  jobParts: { unitCostCents: 0 },
+  jobLabour: { description: '', techId: null },
+}
+
+function entityMutations<T extends EntityTable>(table: T) {
+  const fields = ENTITY_FIELDS[table] as z.ZodObject
+  const prefix = ENTITY_PREFIX[table] as Prefix<T>
+  // Required fields are checked after the defaults are merged (see parseEntityCreate).
+  const create = fields.partial().extend({ id })
+  return {
+    [`${prefix}.create`]: create,
+    [`${prefix}.setFields`]: z.object({ id, fields: fields.partial().refine((f: object) => Object.keys(f).length > 0, { message: 'change at least one field' }) }),
+    [`${prefix}.delete`]: z.object({ id }),
+    [`${prefix}.restore`]: z.object({ id }),
+  } as {
+    [K in `${Prefix<T>}.create`]: z.ZodType<{ id: string } & Partial<EntityFields<T>>>
+  } & {
+    [K in `${Prefix<T>}.setFields`]: z.ZodType<{ id: string, fields: Partial<EntityFields<T>> }>
+  } & {
+    [K in `${Prefix<T>}.delete` | `${Prefix<T>}.restore`]: z.ZodType<{ id: string }>
+  }
+}
+
+export const ENTITY_MUTATIONS = {
+  ...entityMutations('customers'),
+  ...entityMutations('amps'),
+  ...entityMutations('jobs'),
+  ...entityMutations('jobParts'),
+  ...entityMutations('jobLabour'),
+}
+
+/** `job.setFields` -> { table: 'jobs', verb: 'setFields' }; undefined for non-entity mutations. */
+export function entityOf(name: string): { table: EntityTable, verb: 'create' | 'setFields' | 'delete' | 'restore' } | undefined {
+  const [prefix, verb] = name.split('.')
+  const table = (Object.keys(ENTITY_PREFIX) as EntityTable[]).find(t => ENTITY_PREFIX[t] === prefix)
+  if (!table || !verb || !['create', 'setFields', 'delete', 'restore'].includes(verb)) return undefined
+  return { table, verb: verb as 'create' | 'setFields' | 'delete' | 'restore' }
+}
+
+export const ENTITY_TABLES = Object.keys(ENTITY_FIELDS) as EntityTable[]
+
+/** A create's full field set (defaults filled in), or the zod error naming what is missing. */
+export function parseEntityCreate<T extends EntityTable>(table: T, args: { id: string } & Record<string, unknown>) {
+  const { id: _id, ...rest } = args
+  return ENTITY_FIELDS[table].safeParse({ ...ENTITY_DEFAULTS[table], ...rest }) as z.ZodSafeParseResult<EntityFields<T>>
+}
