@@ -1,8 +1,9 @@
 // The on-device database: one per signed-in user. Plain Dexie, no Vue, so tests run it in node.
 import Dexie, { type Table } from 'dexie'
 import type { MutationName, SyncedTable } from '../../../shared/utils/sync/protocol'
+import { STORAGE_KEYS } from '../storage-keys'
 
-export const LOCAL_DB_PREFIX = 'tubewright-'
+export const LOCAL_DB_PREFIX = STORAGE_KEYS.localDbPrefix
 export const localDbName = (userId: string) => `${LOCAL_DB_PREFIX}${userId}`
 
 /** Per shop: this device's client id and mutation counter, and the pull cursor. */
@@ -97,7 +98,9 @@ export interface BlobRow {
   type: string
   size: number
   blob: Blob
-  status: 'pending' | 'uploaded'
+  /** 'refused': the server will never take it (wrong type, too large); kept so nothing vanishes. */
+  status: 'pending' | 'uploaded' | 'refused'
+  reason?: string
   createdAt: string
 }
 
