@@ -1,4 +1,5 @@
-// Starts the on-device store and background sync; the app never waits for it.
+// Starts the on-device store, background sync and the photo queue; the app never waits for them.
 export default defineNuxtPlugin(() => {
   useSyncStore().start()
+  usePhotosStore().start()
 })

@@ -1,3 +1,4 @@
 export * from './auth'
 export * from './notebook'
 export * from './sync'
+export * from './blobs'
