@@ -71,6 +71,7 @@ try {
   ensureBuilt(log)
   const smtpPort = await freePort()
   const mailDir = join(tmp, 'mail')
+  const blobDir = join(tmp, 'blobs')
   smtp = await startSmtpFake({ port: smtpPort, dir: mailDir })
   const appPort = await freePort()
   const sessionPassword = randomBytes(32).toString('hex')
@@ -79,6 +80,7 @@ try {
     NUXT_SESSION_PASSWORD: sessionPassword,
     NUXT_SMTP_PORT: String(smtpPort),
     NUXT_MAIL_DIR: mailDir,
+    NUXT_BLOB_DIR: blobDir,
     NUXT_PUBLIC_ORIGIN: `http://localhost:${appPort}`,
   }
   server = await startAppServer({ port: appPort, env: appEnv, stdio: ['ignore', 'ignore', 'inherit'] })
@@ -92,6 +94,7 @@ try {
       ...process.env,
       TW_TEST_URL: server.url,
       TW_TEST_MAIL_DIR: mailDir,
+      TW_TEST_BLOB_DIR: blobDir,
       TW_TEST_DB_URL: dbUrl,
       TW_DEMO_PASSWORD: demoPassword,
       TW_TEST_SMTP_PORT: String(smtpPort),

@@ -35,7 +35,7 @@ export const useMeasurementsStore = defineStore('measurements', () => {
   }
 
   async function remove(id: string) {
-    const row = rows.value.find(m => m.id === id)
+    const row = await sync.db?.measurements.get(id)
     if (!row) throw new Error('That result is not on this device.')
     await sync.mutate('measurement.delete', { id }, row.version)
   }

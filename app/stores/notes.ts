@@ -23,8 +23,9 @@ export const useNotesStore = defineStore('notes', () => {
   const search = (query: string) => notes.value.filter(n => matchesText(query, n.title, n.body))
   const byId = (id: string) => rows.value.find(n => n.id === id)
 
-  function required(id: string) {
-    const row = byId(id)
+  // Read from the database, not the list: the list may not yet show a change made a moment ago.
+  async function required(id: string) {
+    const row = await sync.db?.notes.get(id)
     if (!row) throw new Error('That note is not on this device.')
     return row
   }
@@ -38,7 +39,7 @@ export const useNotesStore = defineStore('notes', () => {
 
   /** Sends only the fields that changed, based on the version this device last saw. */
   async function edit(id: string, f: NoteFields) {
-    const row = required(id)
+    const row = await required(id)
     const fields: Partial<NoteFields> = {}
     if (f.title.trim() !== row.title) fields.title = f.title.trim()
     if (f.body !== row.body) fields.body = f.body
@@ -48,11 +49,11 @@ export const useNotesStore = defineStore('notes', () => {
   }
 
   async function remove(id: string) {
-    await sync.mutate('note.delete', { id }, required(id).version)
+    await sync.mutate('note.delete', { id }, (await required(id)).version)
   }
 
   async function restore(id: string) {
-    await sync.mutate('note.restore', { id }, required(id).version)
+    await sync.mutate('note.restore', { id }, (await required(id)).version)
   }
 
   return { notes, search, byId, create, edit, remove, restore }

@@ -2,7 +2,7 @@ import { defineStore } from 'pinia'
 import { isBlobType, MAX_BLOB_BYTES } from '#shared/utils/schemas/blobs'
 import type { BlobRow } from '~/utils/sync/local-db'
 import { STORAGE_KEYS } from '~/utils/storage-keys'
-import { backoffDelay } from '~/stores/sync'
+import { backoffDelay } from '~/utils/sync/backoff'
 
 export async function sha256Hex(data: ArrayBuffer): Promise<string> {
   const digest = await crypto.subtle.digest('SHA-256', data)
@@ -48,8 +48,9 @@ export const usePhotosStore = defineStore('photos', () => {
     let status: number
     let message: string
     try {
+      // Bytes rather than the Blob itself: the same request everywhere, at most 8 MiB in memory.
       const res = await $fetch.raw<{ message?: string }>(`/api/blobs/${row.sha256}`, {
-        method: 'PUT', body: row.blob, headers: { 'content-type': row.type }, credentials: 'include', ignoreResponseError: true, retry: 0, timeout: 120_000,
+        method: 'PUT', body: await row.blob.arrayBuffer(), headers: { 'content-type': row.type }, credentials: 'include', ignoreResponseError: true, retry: 0, timeout: 120_000,
       })
       status = res.status
       message = res._data?.message ?? ''

@@ -5,11 +5,10 @@ import { SyncEngine, SyncHttpError, type Transport } from '~/utils/sync/engine'
 import { syncStateOf, type SyncState } from '~/utils/sync/status'
 import type { ConflictChoice } from '~/utils/sync/conflict-view'
 import { STORAGE_KEYS } from '~/utils/storage-keys'
+import { backoffDelay } from '~/utils/sync/backoff'
 
 export const SYNC_DEBOUNCE_MS = 800
 export const SYNC_INTERVAL_MS = 45_000
-const BACKOFF_FIRST_MS = 2_000
-const BACKOFF_MAX_MS = 5 * 60_000
 
 export interface UnsentHint { userId: string, name: string, email: string, count: number }
 
@@ -26,12 +25,6 @@ export function readUnsentHint(): UnsentHint | null {
 const isQuotaError = (e: unknown) => {
   const err = e as { name?: string, inner?: { name?: string } } | null
   return err?.name === 'QuotaExceededError' || err?.inner?.name === 'QuotaExceededError'
-}
-
-/** Exponential backoff with full jitter in its upper half, so many devices do not retry in step. */
-export function backoffDelay(attempt: number, random = Math.random) {
-  const ceiling = Math.min(BACKOFF_MAX_MS, BACKOFF_FIRST_MS * 2 ** Math.max(0, attempt - 1))
-  return Math.round(ceiling * (0.5 + random() * 0.5))
 }
 
 // Answers every HTTP status as data; only a request that got no answer throws.
