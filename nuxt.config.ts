@@ -23,7 +23,12 @@ export default defineNuxtConfig({
         { name: 'description', content: 'Bench companion for tube amplifier techs, shops and players.' },
         { name: 'theme-color', content: '#14161a' },
       ],
-      link: [{ rel: 'icon', href: '/favicon.svg', type: 'image/svg+xml' }],
+      // Static so the prerendered shell carries them before any script runs (install, offline).
+      link: [
+        { rel: 'icon', href: '/favicon.svg', type: 'image/svg+xml' },
+        { rel: 'apple-touch-icon', href: '/apple-touch-icon-180x180.png' },
+        { rel: 'manifest', href: '/manifest.webmanifest' },
+      ],
     },
   },
   runtimeConfig: {
@@ -33,6 +38,8 @@ export default defineNuxtConfig({
     mailFrom: 'Tubewright <no-reply@tubewright.example>',
     mailDir: '',
     publicOrigin: 'http://localhost:3000',
+    // Photos and other content-addressed files (NUXT_BLOB_DIR).
+    blobDir: '.data/blobs',
     session: {
       name: 'tubewright-session',
       maxAge: 60 * 60 * 24 * 30,
@@ -47,11 +54,32 @@ export default defineNuxtConfig({
   },
   tailwindcss: { cssPath: false, viewer: false },
   pwa: {
+    // Never skip waiting on our own: AppUpdatePrompt asks before the new version takes over.
     registerType: 'prompt',
-    manifest: false,
-    workbox: { navigateFallback: null, globPatterns: [] },
+    manifest: {
+      id: '/',
+      name: 'Tubewright',
+      short_name: 'Tubewright',
+      description: 'Bench companion for tube amplifier techs, shops and players. Works with no signal.',
+      lang: 'en',
+      start_url: '/',
+      scope: '/',
+      display: 'standalone',
+      orientation: 'portrait',
+      theme_color: '#14161a',
+      background_color: '#14161a',
+    },
+    // Icons come from public/favicon.svg via pwa-assets.config.ts, generated during the build (offline).
+    pwaAssets: { config: true, overrideManifestIcons: true },
+    workbox: {
+      globPatterns: ['**/*.{js,css,html,svg,png,ico,webp,woff2,woff}'],
+      navigateFallback: '/',
+      navigateFallbackDenylist: [/^\/api\//],
+      cleanupOutdatedCaches: true,
+    },
+    experimental: { enableWorkboxPayloadQueryParams: true },
+    client: { installPrompt: false, periodicSyncForUpdates: 60 * 60 },
     devOptions: { enabled: false },
-    disable: true,
   },
   typescript: { strict: true },
   eslint: { config: { stylistic: false } },

@@ -1,6 +1,6 @@
 import type { BenchToolId } from '#shared/utils/bench/index'
 
-// Every key this app keeps in localStorage or IndexedDB, in one place.
+// Every key this app keeps in localStorage or IndexedDB (and the Web Lock it syncs under), in one place.
 export const STORAGE_KEYS = {
   me: 'tubewright.me',
   theme: 'tubewright.theme',
@@ -8,4 +8,10 @@ export const STORAGE_KEYS = {
   benchTool: (tool: BenchToolId) => `tubewright.bench.${tool}`,
   /** The shop's own tube-library entries, cached for use with no signal. */
   shopTubes: (shopId: string) => `tubewright.tubes.${shopId}`,
+  /** Who signed out (or was signed out) with changes still waiting on this device. */
+  unsent: 'tubewright.unsent',
+  /** IndexedDB: one database per user, `tubewright-<userId>`. */
+  localDbPrefix: 'tubewright-',
+  /** Web Lock name prefix: one tab per user syncs at a time. */
+  syncLockPrefix: 'tubewright-sync-',
 } as const

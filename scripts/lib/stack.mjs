@@ -70,6 +70,7 @@ export async function startThrowawayStack({ log = console.log, demoPassword = 't
         TW_DEMO_PASSWORD: demoPassword,
         TW_TEST_SMTP_PORT: String(smtpPort),
         TW_TEST_APP_ENV: JSON.stringify(appEnv),
+        TW_TEST_BLOB_DIR: appEnv.NUXT_BLOB_DIR,
       },
     }
   }

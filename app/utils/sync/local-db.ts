@@ -3,8 +3,9 @@ import Dexie, { type Table } from 'dexie'
 import type { MutationName, SyncedTable } from '../../../shared/utils/sync/protocol'
 import type { EntityFields, EntityTable } from '../../../shared/utils/sync/entities'
 import type { JobState } from '../../../shared/utils/jobs/states'
+import { STORAGE_KEYS } from '../storage-keys'
 
-export const LOCAL_DB_PREFIX = 'tubewright-'
+export const LOCAL_DB_PREFIX = STORAGE_KEYS.localDbPrefix
 export const localDbName = (userId: string) => `${LOCAL_DB_PREFIX}${userId}`
 
 /** Per shop: this device's client id and mutation counter, and the pull cursor. */
@@ -133,7 +134,9 @@ export interface BlobRow {
   type: string
   size: number
   blob: Blob
-  status: 'pending' | 'uploaded'
+  /** 'refused': the server will never take it (wrong type, too large); kept so nothing vanishes. */
+  status: 'pending' | 'uploaded' | 'refused'
+  reason?: string
   createdAt: string
 }
 

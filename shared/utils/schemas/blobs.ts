@@ -1,0 +1,12 @@
+import { z } from 'zod'
+
+/** Photos the shop server accepts, and how large one may be. */
+export const BLOB_TYPES = ['image/jpeg', 'image/png', 'image/webp'] as const
+export type BlobType = (typeof BLOB_TYPES)[number]
+export const MAX_BLOB_BYTES = 8 * 1024 * 1024
+
+export const isBlobType = (t: string): t is BlobType => (BLOB_TYPES as readonly string[]).includes(t)
+
+export const blobParamsSchema = z.object({
+  sha256: z.string().regex(/^[0-9a-f]{64}$/, { message: 'sha256 must be 64 lower-case hex digits' }),
+})

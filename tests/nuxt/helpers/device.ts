@@ -1,0 +1,69 @@
+// An on-device database for Nuxt-environment tests: fake-indexeddb under Dexie, and a fake shop server.
+import 'fake-indexeddb/auto'
+import Dexie from 'dexie'
+import { registerEndpoint } from '@nuxt/test-utils/runtime'
+import { readBody, setResponseStatus } from 'h3'
+import type { PullReply, PushBody, RowChange } from '#shared/utils/sync/protocol'
+import { useSessionStore } from '~/stores/session'
+
+// Dexie read its dependencies when the app loaded, before fake-indexeddb existed.
+Dexie.dependencies.indexedDB = indexedDB
+Dexie.dependencies.IDBKeyRange = IDBKeyRange
+
+export const SHOP_ID = '6f1c2a10-0000-4000-8000-00000000a001'
+
+/** Sign in on the device only (as a cached session would be), with a fresh user id and database. */
+export function signInLocally(role: 'tech' | 'owner' | 'player' = 'tech') {
+  const user = { id: crypto.randomUUID(), name: 'Owen Pryde', email: 'tech@larkspur.example' }
+  useSessionStore().me = {
+    user,
+    memberships: [{ shopId: SHOP_ID, shopName: 'Larkspur Amp Works', role }],
+    activeShop: { id: SHOP_ID, name: 'Larkspur Amp Works', role },
+  }
+  return user
+}
+
+export function signOutLocally() {
+  useSessionStore().me = null
+}
+
+/**
+ * A small stand-in for the shop server's sync routes: applies every change, and answers pulls
+ * with whatever rows the test puts in `rows`. `mode` makes it fail (503) or hold a push open.
+ */
+export function fakeSyncServer() {
+  const server = {
+    mode: 'up' as 'up' | 'down' | 'hold',
+    lmid: 0,
+    version: 0,
+    pushes: [] as PushBody[],
+    rows: [] as RowChange[],
+    release: () => {},
+  }
+  registerEndpoint('/api/sync/push', {
+    method: 'POST',
+    handler: async (event) => {
+      const body = await readBody<PushBody>(event)
+      if (server.mode === 'down') {
+        setResponseStatus(event, 503)
+        return { message: 'The shop server cannot reach its database.' }
+      }
+      if (server.mode === 'hold') await new Promise<void>(resolve => (server.release = resolve))
+      server.pushes.push(body)
+      const fresh = body.mutations.filter(m => m.id > server.lmid)
+      server.lmid = Math.max(server.lmid, ...body.mutations.map(m => m.id))
+      return { lmid: server.lmid, results: fresh.map(m => ({ id: m.id, status: 'applied' })) }
+    },
+  })
+  registerEndpoint('/api/sync/pull', {
+    method: 'POST',
+    handler: async (event) => {
+      if (server.mode === 'down') {
+        setResponseStatus(event, 503)
+        return { message: 'down' }
+      }
+      return { cookie: `v${server.version}`, lmid: server.lmid, reset: false, more: false, changes: server.rows.splice(0) } satisfies PullReply
+    },
+  })
+  return server
+}
