@@ -2,6 +2,8 @@ import { beforeEach, describe, expect, it } from 'vitest'
 import { mountSuspended } from '@nuxt/test-utils/runtime'
 import { BenchIdleDissipation } from '#components'
 import { choose, fieldError, testid, type } from './helpers'
+import { fakeSyncServer, signInLocally, SHOP_ID } from './helpers/device'
+import { useSyncStore } from '~/stores/sync'
 
 beforeEach(() => {
   localStorage.clear()
@@ -111,12 +113,20 @@ describe('Idle dissipation form', () => {
     expect(testid(again, 'watts').text()).toBe('9.98 W')
   })
 
-  it('saves through the measurements store and shows its error', async () => {
+  it('saves the result to the notebook on this device, through the measurements store', async () => {
+    const server = fakeSyncServer()
+    server.mode = 'down'
+    signInLocally('tech')
+    const sync = useSyncStore()
     const w = await sixV6Pair()
     const save = w.findAll('button').find(b => b.text() === 'Save to notebook')!
     expect(save.attributes('disabled')).toBeUndefined()
     await save.trigger('click')
-    await new Promise(r => setTimeout(r, 0))
-    expect(testid(w, 'save-status').text()).toBe('Not saved: Saving measurements arrives with the on-device store.')
+    for (let i = 0; i < 100 && !testid(w, 'save-status').exists(); i++) await new Promise(r => setTimeout(r, 10))
+    expect(testid(w, 'save-status').text()).toBe('Saved to the notebook on this device.')
+    const queued = await sync.db!.outbox.where('shopId').equals(SHOP_ID).toArray()
+    expect(queued.map(m => m.name)).toEqual(['measurement.create'])
+    // Source: RCA RC-30 tube manual, 6V6GT typical operation: 285 V, 35 mA per tube -> 9.98 W
+    expect((queued[0]!.args.outputs as { watts: number }).watts).toBeCloseTo(9.975, 3)
   })
 })

@@ -1,5 +1,6 @@
 // What the person sees about sync: four states, each with its own word and shape.
 import type { MutationName } from '../../../shared/utils/sync/protocol'
+import { entityOf, type EntityTable } from '../../../shared/utils/sync/entities'
 
 export type SyncState = 'local' | 'sending' | 'synced' | 'conflict'
 export type ItemSyncState = Exclude<SyncState, 'sending'>
@@ -33,7 +34,10 @@ export function itemSyncState(row: { id: string, version: number, pending: numbe
   return 'synced'
 }
 
-const CHANGE_NAMES: Record<MutationName, string> = {
+const ENTITY_WORDS: Record<EntityTable, string> = { customers: 'Customer', amps: 'Amp', jobs: 'Job', jobParts: 'Part', jobLabour: 'Labour' }
+const VERB_WORDS = { create: 'added', setFields: 'edited', delete: 'deleted', restore: 'restored' } as const
+
+const CHANGE_NAMES: Partial<Record<MutationName, string>> = {
   'note.create': 'New note',
   'note.setFields': 'Note edited',
   'note.delete': 'Note deleted',
@@ -45,7 +49,8 @@ const CHANGE_NAMES: Record<MutationName, string> = {
 
 /** A short human line for a queued or refused change. */
 export function describeChange(name: MutationName, args: Record<string, unknown>): string {
-  const base = CHANGE_NAMES[name] ?? name
+  const entity = entityOf(name)
+  const base = CHANGE_NAMES[name] ?? (entity ? `${ENTITY_WORDS[entity.table]} ${VERB_WORDS[entity.verb]}` : name)
   const fields = args.fields as { title?: string, body?: string } | undefined
   const text = String(args.title || args.body || fields?.title || fields?.body || '').trim()
   if (!text) return base
