@@ -103,10 +103,6 @@ export const useSyncStore = defineStore('sync', () => {
       again = true
       return
     }
-    if (typeof navigator !== 'undefined' && navigator.onLine === false) {
-      offline.value = true
-      return
-    }
     running = true
     try {
       await current.ready
@@ -137,6 +133,7 @@ export const useSyncStore = defineStore('sync', () => {
       storageFull.value = true
       return backOff()
     }
+    // No answer at all. navigator.onLine is not trusted either way: only a failed request says offline.
     if (!(e instanceof SyncHttpError)) {
       offline.value = true
       return backOff()

@@ -1,4 +1,4 @@
-import { describe, expect, it } from 'vitest'
+import { describe, expect, it, vi } from 'vitest'
 import { flushPromises } from '@vue/test-utils'
 import { mountSuspended, registerEndpoint } from '@nuxt/test-utils/runtime'
 import { setResponseStatus } from 'h3'
@@ -82,11 +82,32 @@ describe('sync and the session', () => {
     const notes = useNotesStore()
     await until(() => !!sync.engine, 'the engine to start')
     await notes.create({ title: '', body: 'Filter caps drained and verified with a meter.' })
+    await until(() => sync.pending === 1, 'the change waiting')
     sync.syncNow()
     await until(() => sync.blocked === 'update', 'the update block')
     const notices = await mountSuspended(SyncNotices)
     await flushPromises()
     expect(notices.get('[data-testid="sync-update-banner"]').text()).toContain('Update the app to send your changes')
     expect(sync.pending).toBe(1)
+  })
+
+  it('says so when the device is out of space, and saves nothing half-way', async () => {
+    fakeSyncServer().mode = 'down'
+    signInLocally()
+    const sync = useSyncStore()
+    const notes = useNotesStore()
+    await until(() => !!sync.engine, 'the engine to start')
+    const add = vi.spyOn(sync.db!.outbox, 'add').mockRejectedValueOnce(new DOMException('The quota has been exceeded.', 'QuotaExceededError'))
+    await expect(notes.create({ title: '', body: 'Will not fit.' })).rejects.toThrow(/out of storage space/)
+    add.mockRestore()
+    expect(sync.storageFull).toBe(true)
+    const notices = await mountSuspended(SyncNotices)
+    await flushPromises()
+    expect(notices.get('[data-testid="sync-quota-banner"]').text()).toContain('out of storage space')
+    // The transaction rolled back: no half-saved note in the view, nothing in the outbox.
+    expect(await sync.db!.notes.count()).toBe(0)
+    expect(await sync.db!.outbox.count()).toBe(0)
+    await notes.create({ title: '', body: 'Fits now.' })
+    expect(sync.storageFull).toBe(false)
   })
 })
