@@ -51,8 +51,9 @@ export const useSyncStore = defineStore('sync', () => {
 
   const deps = () => [db.value, shopId.value]
   const forShop = <T>(q: (d: LocalDb, shop: string) => Promise<T>, empty: T) => () => (db.value && shopId.value ? q(db.value, shopId.value) : empty)
-  const pending = useLiveQuery(forShop((d, s) => d.outbox.where('shopId').equals(s).count(), 0), deps, 0)
-  const pendingList = useLiveQuery(forShop((d, s) => d.outbox.where('[shopId+id]').between([s, 0], [s, Infinity]).limit(100).toArray(), [] as OutboxRow[]), deps, [])
+  // Changes the server has not answered yet (answered ones wait for the next pull, see engine.ts).
+  const pending = useLiveQuery(forShop((d, s) => d.outbox.where('shopId').equals(s).filter(m => !m.sent).count(), 0), deps, 0)
+  const pendingList = useLiveQuery(forShop((d, s) => d.outbox.where('[shopId+id]').between([s, 0], [s, Infinity]).filter(m => !m.sent).limit(100).toArray(), [] as OutboxRow[]), deps, [])
   const rejections = useLiveQuery(forShop((d, s) => d.rejections.where('shopId').equals(s).reverse().sortBy('seq'), [] as RejectionRow[]), deps, [])
   const conflictList = useLiveQuery(forShop((d, s) => d.conflicts.where('shopId').equals(s).filter(c => c.status === 'open').toArray(), [] as ConflictRow[]), deps, [])
   const meta = useLiveQuery(forShop((d, s) => d.meta.get(s), undefined as MetaRow | undefined), deps, undefined)
@@ -102,10 +103,6 @@ export const useSyncStore = defineStore('sync', () => {
       again = true
       return
     }
-    if (typeof navigator !== 'undefined' && navigator.onLine === false) {
-      offline.value = true
-      return
-    }
     running = true
     try {
       await current.ready
@@ -136,6 +133,7 @@ export const useSyncStore = defineStore('sync', () => {
       storageFull.value = true
       return backOff()
     }
+    // No answer at all. navigator.onLine is not trusted either way: only a failed request says offline.
     if (!(e instanceof SyncHttpError)) {
       offline.value = true
       return backOff()

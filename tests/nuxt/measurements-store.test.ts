@@ -60,6 +60,6 @@ describe('measurements store (offline, on the device)', () => {
     expect(store.inNotebook).toHaveLength(0)
     // Nothing reached the server while it was down, and nothing was lost.
     expect(server.pushes).toHaveLength(0)
-    expect(sync.pending).toBe(3)
+    await until(() => sync.pending === 3, 'three changes waiting')
   })
 })

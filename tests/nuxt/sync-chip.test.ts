@@ -51,7 +51,7 @@ describe('AppSyncChip over the real sync store', () => {
     expect(state().text()).not.toMatch(/\d/)
     expect(sync.pending).toBe(0)
     expect(server.pushes.flatMap(p => p.mutations.map(m => m.name))).toEqual(['note.create'])
-    expect(notes.byId(id)?.version).toBe(1)
+    await until(() => notes.byId(id)?.version === 1, 'the server copy of the note')
 
     // Someone else's edit clashed on the server: the pull brings an open conflict.
     server.version = 2

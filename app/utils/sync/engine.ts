@@ -84,8 +84,9 @@ export class SyncEngine {
     })
   }
 
+  /** Changes the server has not answered yet. */
   pendingCount(): Promise<number> {
-    return this.db.outbox.where('shopId').equals(this.shopId).count()
+    return this.db.outbox.where('shopId').equals(this.shopId).filter(m => !m.sent).count()
   }
 
   private async call<T>(path: '/api/sync/push' | '/api/sync/pull', body: unknown): Promise<T> {
@@ -100,7 +101,7 @@ export class SyncEngine {
     const meta = await this.meta()
     const all: MutationResult[] = []
     for (;;) {
-      const batch = await this.db.outbox.where('[shopId+id]').between([this.shopId, 0], [this.shopId, Infinity]).limit(MAX_PUSH_MUTATIONS).toArray()
+      const batch = await this.db.outbox.where('[shopId+id]').between([this.shopId, 0], [this.shopId, Infinity]).filter(m => !m.sent).limit(MAX_PUSH_MUTATIONS).toArray()
       if (!batch.length) break
       const reply = await this.call<PushReply>('/api/sync/push', {
         clientId: meta.clientId, shopId: this.shopId, schemaVersion: SYNC_SCHEMA_VERSION,
@@ -113,7 +114,7 @@ export class SyncEngine {
     return { sent: all.length, results: all }
   }
 
-  /** Drop answered changes from the outbox; rejected ones move to the rejections list. */
+  /** Mark answered changes sent (the next pull drops them); rejected ones go to the rejections list. */
   private async settle(batch: OutboxRow[], results: MutationResult[]) {
     const byId = new Map(batch.map(m => [m.id, m]))
     const db = this.db
@@ -125,7 +126,7 @@ export class SyncEngine {
         if (rejected && !(await db.rejections.where('uuid').equals(m.uuid).count())) {
           await db.rejections.add({ shopId: this.shopId, uuid: m.uuid, name: m.name, args: m.args, reason: r.reason ?? 'refused by the server', at: this.now().toISOString() } satisfies RejectionRow)
         }
-        await db.outbox.delete([this.shopId, m.id])
+        await db.outbox.update([this.shopId, m.id], { sent: true })
         m.targets.forEach(t => this.needsRebase.add(t))
       }
     })
@@ -159,7 +160,13 @@ export class SyncEngine {
         touched.add(key(c.table, c.id))
       }
       await db.meta.update(this.shopId, { cookie: reply.cookie, lmid: reply.lmid, lastSyncedAt: this.now().toISOString() })
-      const pending = await db.outbox.where('[shopId+id]').between([this.shopId, 0], [this.shopId, Infinity]).toArray()
+      // Once the last page is in, answered changes the server applied (lmid, from this pull's
+      // snapshot) are part of the server rows on this device and leave the outbox.
+      const outbox = await db.outbox.where('[shopId+id]').between([this.shopId, 0], [this.shopId, Infinity]).toArray()
+      const confirmed = reply.more ? [] : outbox.filter(m => m.sent && m.id <= reply.lmid)
+      await db.outbox.bulkDelete(confirmed.map(m => [this.shopId, m.id] as [string, number]))
+      confirmed.forEach(m => m.targets.forEach(t => touched.add(t)))
+      const pending = outbox.filter(m => !confirmed.includes(m))
       if (reply.reset) pending.forEach(m => m.targets.forEach(t => touched.add(t)))
       else pending.forEach(m => m.targets.forEach(t => touched.has(t) || touched.add(t)))
       await this.rebase([...touched], pending, reply.lmid)

@@ -28,6 +28,11 @@ export interface OutboxRow {
   /** `table:id` of every record it changes, for rebasing. */
   targets: string[]
   createdAt: string
+  /**
+   * The server answered it (applied, conflict or rejected). It stays here, still replayed on the
+   * view, until a pull brings the rows it changed; until then the server copy on this device is stale.
+   */
+  sent?: boolean
 }
 
 export interface ServerRow {

@@ -13,8 +13,7 @@ Dexie.dependencies.IDBKeyRange = IDBKeyRange
 export const SHOP_ID = '6f1c2a10-0000-4000-8000-00000000a001'
 
 /** Sign in on the device only (as a cached session would be), with a fresh user id and database. */
-export function signInLocally(role: 'tech' | 'owner' | 'player' = 'tech') {
-  const user = { id: crypto.randomUUID(), name: 'Owen Pryde', email: 'tech@larkspur.example' }
+export function signInLocally(role: 'tech' | 'owner' | 'player' = 'tech', user = { id: crypto.randomUUID(), name: 'Owen Pryde', email: 'tech@larkspur.example' }) {
   useSessionStore().me = {
     user,
     memberships: [{ shopId: SHOP_ID, shopName: 'Larkspur Amp Works', role }],
@@ -29,11 +28,12 @@ export function signOutLocally() {
 
 /**
  * A small stand-in for the shop server's sync routes: applies every change, and answers pulls
- * with whatever rows the test puts in `rows`. `mode` makes it fail (503) or hold a push open.
+ * with whatever rows the test puts in `rows`. `mode` makes it fail (with `status`) or hold a push open.
  */
 export function fakeSyncServer() {
   const server = {
     mode: 'up' as 'up' | 'down' | 'hold',
+    status: 503,
     lmid: 0,
     version: 0,
     pushes: [] as PushBody[],
@@ -45,8 +45,8 @@ export function fakeSyncServer() {
     handler: async (event) => {
       const body = await readBody<PushBody>(event)
       if (server.mode === 'down') {
-        setResponseStatus(event, 503)
-        return { message: 'The shop server cannot reach its database.' }
+        setResponseStatus(event, server.status)
+        return { message: `The shop server answered ${server.status}.` }
       }
       if (server.mode === 'hold') await new Promise<void>(resolve => (server.release = resolve))
       server.pushes.push(body)
@@ -59,8 +59,8 @@ export function fakeSyncServer() {
     method: 'POST',
     handler: async (event) => {
       if (server.mode === 'down') {
-        setResponseStatus(event, 503)
-        return { message: 'down' }
+        setResponseStatus(event, server.status)
+        return { message: `The shop server answered ${server.status}.` }
       }
       return { cookie: `v${server.version}`, lmid: server.lmid, reset: false, more: false, changes: server.rows.splice(0) } satisfies PullReply
     },
