@@ -40,6 +40,12 @@ export default defineNuxtConfig({
     publicOrigin: 'http://localhost:3000',
     // Photos and other content-addressed files (NUXT_BLOB_DIR).
     blobDir: '.data/blobs',
+    // The payment provider (NUXT_PAYMENT_*): a local fake in development and tests.
+    paymentApiHost: '127.0.0.1',
+    paymentApiPort: 0,
+    paymentApiProtocol: 'http',
+    paymentSecretKey: '',
+    paymentWebhookSecret: '',
     session: {
       name: 'tubewright-session',
       maxAge: 60 * 60 * 24 * 30,

@@ -9,6 +9,7 @@ const { startMariadb, ensureDatabase } = await import('./lib/mariadb.mjs')
 const { runMigrations } = await import('./migrate.mjs')
 const { ensureBuilt } = await import('./lib/build.mjs')
 const { startSmtpFake } = await import('./lib/smtp-fake.mjs')
+const { startPaymentFake } = await import('./lib/payment-fake.mjs')
 const { startAppServer } = await import('./lib/server.mjs')
 const { execFileSync } = await import('node:child_process')
 
@@ -17,6 +18,7 @@ const fileEnv = ensureEnvFile('.env', {
   TW_DB_NAME: 'tubewright',
   TW_DB_USER: 'tubewright',
   TW_SMTP_PORT: '2525',
+  TW_PAYMENT_PORT: '2526',
   TW_DEMO_PASSWORD: 'tubewright-demo',
 })
 const env = { ...fileEnv, ...process.env }
@@ -37,6 +39,14 @@ const smtpPort = Number(env.TW_SMTP_PORT)
 const mailDir = '.data/mail'
 const smtp = await startSmtpFake({ port: smtpPort, dir: mailDir, log: m => log(m) })
 const publicOrigin = env.NUXT_PUBLIC_ORIGIN || `http://localhost:${port}`
+// The fake provider posts its events back to this app, so it learns the app's port here.
+const payments = await startPaymentFake({
+  port: Number(env.TW_PAYMENT_PORT),
+  secretKey: env.NUXT_PAYMENT_SECRET_KEY,
+  webhookSecret: env.NUXT_PAYMENT_WEBHOOK_SECRET,
+  webhookUrl: `http://127.0.0.1:${port}/api/payments/webhook`,
+  log: m => log(`payments: ${m}`),
+})
 const { child, url } = await startAppServer({
   port,
   env: {
@@ -45,6 +55,10 @@ const { child, url } = await startAppServer({
     NUXT_SMTP_PORT: String(smtpPort),
     NUXT_MAIL_DIR: mailDir,
     NUXT_PUBLIC_ORIGIN: publicOrigin,
+    NUXT_PAYMENT_API_HOST: '127.0.0.1',
+    NUXT_PAYMENT_API_PORT: String(payments.port),
+    NUXT_PAYMENT_SECRET_KEY: env.NUXT_PAYMENT_SECRET_KEY,
+    NUXT_PAYMENT_WEBHOOK_SECRET: env.NUXT_PAYMENT_WEBHOOK_SECRET,
   },
 })
 
@@ -60,16 +74,19 @@ console.log(`
     player  sam@players.example      (Sam Okafor)
 
   Mail sent by the app is caught locally (SMTP 127.0.0.1:${smtpPort}) and kept in ${mailDir}/.
+  Payments go to a local fake provider on 127.0.0.1:${payments.port} (no real money moves).
   Stop with Ctrl+C; the database keeps running until npm run db:stop.
 `)
 
 const shutdown = () => {
   child.kill('SIGTERM')
+  payments.close()
   smtp.close(() => process.exit(0))
 }
 process.on('SIGINT', shutdown)
 process.on('SIGTERM', shutdown)
 child.on('exit', (code) => {
+  payments.close()
   smtp.close()
   process.exit(code ?? 0)
 })

@@ -20,6 +20,8 @@ export function ensureEnvFile(file, defaults) {
   const generated = {
     TW_DB_PASSWORD: secret(18),
     NUXT_SESSION_PASSWORD: secret(36),
+    NUXT_PAYMENT_SECRET_KEY: `sk_test_local_${randomBytes(12).toString('hex')}`,
+    NUXT_PAYMENT_WEBHOOK_SECRET: `whsec_${randomBytes(24).toString('hex')}`,
   }
   const merged = { ...defaults, ...generated, ...current }
   const changed = Object.keys(merged).some(k => !(k in current))

@@ -1,5 +1,5 @@
 // A throwaway stack for tests and benchmarks: MariaDB in a temp dir, migrated and seeded,
-// the built app, and an SMTP catcher, all on free loopback ports.
+// the built app, an SMTP catcher and the payment fake, all on free loopback ports.
 import { execSync } from 'node:child_process'
 import { mkdtempSync } from 'node:fs'
 import { tmpdir } from 'node:os'
@@ -11,6 +11,7 @@ import { runMigrations } from '../migrate.mjs'
 import { ensureBuilt } from './build.mjs'
 import { startSmtpFake } from './smtp-fake.mjs'
 import { startAppServer } from './server.mjs'
+import { startPaymentFake } from './payment-fake.mjs'
 
 export const freePort = () => new Promise((resolve, reject) => {
   const s = createServer()
@@ -23,10 +24,11 @@ export const freePort = () => new Promise((resolve, reject) => {
 
 export async function startThrowawayStack({ log = console.log, demoPassword = 'tubewright-demo', serverStdio = ['ignore', 'ignore', 'inherit'] } = {}) {
   const tmp = mkdtempSync(join(tmpdir(), 'tubewright-'))
-  const parts = { server: null, smtp: null, db: false }
+  const parts = { server: null, smtp: null, payments: null, db: false }
   const stop = async () => {
     if (parts.server) parts.server.child.kill('SIGTERM')
     if (parts.smtp) parts.smtp.close()
+    if (parts.payments) parts.payments.close()
     if (parts.db) await stopMariadb({ dir: join(tmp, 'mariadb'), log })
     removeDir(tmp)
   }
@@ -46,6 +48,11 @@ export async function startThrowawayStack({ log = console.log, demoPassword = 't
     const mailDir = join(tmp, 'mail')
     parts.smtp = await startSmtpFake({ port: smtpPort, dir: mailDir })
     const appPort = await freePort()
+    const paymentSecretKey = `sk_test_local_${randomBytes(12).toString('hex')}`
+    const paymentWebhookSecret = `whsec_${randomBytes(24).toString('hex')}`
+    parts.payments = await startPaymentFake({
+      secretKey: paymentSecretKey, webhookSecret: paymentWebhookSecret, webhookUrl: `http://127.0.0.1:${appPort}/api/payments/webhook`,
+    })
     const appEnv = {
       NUXT_DATABASE_URL: dbUrl,
       NUXT_SESSION_PASSWORD: randomBytes(32).toString('hex'),
@@ -53,6 +60,10 @@ export async function startThrowawayStack({ log = console.log, demoPassword = 't
       NUXT_MAIL_DIR: mailDir,
       NUXT_PUBLIC_ORIGIN: `http://localhost:${appPort}`,
       NUXT_BLOB_DIR: join(tmp, 'blobs'),
+      NUXT_PAYMENT_API_HOST: '127.0.0.1',
+      NUXT_PAYMENT_API_PORT: String(parts.payments.port),
+      NUXT_PAYMENT_SECRET_KEY: paymentSecretKey,
+      NUXT_PAYMENT_WEBHOOK_SECRET: paymentWebhookSecret,
     }
     parts.server = await startAppServer({ port: appPort, env: appEnv, stdio: serverStdio })
     log(`app server on ${parts.server.url}`)
@@ -71,6 +82,7 @@ export async function startThrowawayStack({ log = console.log, demoPassword = 't
         TW_TEST_SMTP_PORT: String(smtpPort),
         TW_TEST_APP_ENV: JSON.stringify(appEnv),
         TW_TEST_BLOB_DIR: appEnv.NUXT_BLOB_DIR,
+        TW_TEST_PAYMENT_URL: `http://127.0.0.1:${parts.payments.port}`,
       },
     }
   }

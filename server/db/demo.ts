@@ -10,3 +10,75 @@ export const DEMO_USERS: { id: string, email: string, name: string, role: Role }
   { id: '6f1c2a10-0000-4000-8000-000000000201', email: 'dana@players.example', name: 'Dana Whitlow', role: 'player' },
   { id: '6f1c2a10-0000-4000-8000-000000000202', email: 'sam@players.example', name: 'Sam Okafor', role: 'player' },
 ]
+
+// A week of the demo shop's jobs, one in every state. Invented people, generic amps.
+const idOf = (group: string, n: number) => `6f1c2a10-0000-4000-8${group}-${String(n).padStart(12, '0')}`
+const [, TECH, DESK] = DEMO_USERS.map(u => u.id)
+export const DEMO_SEED_CLIENT = 'seed'
+export const DEMO_SETTINGS = { labourRateCents: 9000, taxRateBasisPoints: 825, currency: 'usd', readyEmail: true }
+
+export const DEMO_CUSTOMERS = [
+  { id: idOf('001', 1), name: 'Dana Whitlow', email: 'dana@players.example', phone: '555-0141', notes: '', playerUserId: DEMO_USERS[3]!.id },
+  { id: idOf('001', 2), name: 'Sam Okafor', email: 'sam@players.example', phone: '555-0142', notes: 'Prefers a text when ready.', playerUserId: DEMO_USERS[4]!.id },
+  { id: idOf('001', 3), name: 'Priya Venn', email: 'priya.venn@customers.example', phone: '', notes: '', playerUserId: null },
+  { id: idOf('001', 4), name: 'Marcus Hale', email: 'marcus.hale@customers.example', phone: '555-0144', notes: '', playerUserId: null },
+  { id: idOf('001', 5), name: 'Lena Ostrow', email: '', phone: '555-0145', notes: 'No e-mail; call.', playerUserId: null },
+  { id: idOf('001', 6), name: 'Ike Brannigan', email: 'ike.b@customers.example', phone: '', notes: '', playerUserId: null },
+]
+const C = DEMO_CUSTOMERS.map(c => c.id)
+
+type BiasMode = 'fixed' | 'cathode'
+const amp = (n: number, customerId: string, description: string, serial: string, tubeComplement: string, powerTubeCount: number, biasMode: BiasMode, rectifier = 'solid state') =>
+  ({ id: idOf('002', n), customerId, description, serial, tubeComplement, powerTubeCount, biasMode, rectifier, notes: '' })
+
+export const DEMO_AMPS = [
+  amp(1, C[0]!, '18 W two-EL84 combo, cathode biased', 'LAW-0412', '3 x 12AX7, 2 x EL84, EZ81', 2, 'cathode', 'EZ81'),
+  amp(2, C[1]!, 'two-6V6 combo, fixed bias', 'LAW-0419', '2 x 12AX7, 1 x 12AT7, 2 x 6V6GT', 2, 'fixed'),
+  amp(3, C[1]!, '100 W four-6L6 head', 'LAW-0427', '4 x 12AX7, 4 x 6L6GC', 4, 'fixed'),
+  amp(4, C[2]!, '50 W two-EL34 head, fixed bias', 'LAW-0431', '3 x 12AX7, 2 x EL34', 2, 'fixed'),
+  amp(5, C[3]!, '5 W single-ended 6V6 combo, cathode biased', 'LAW-0436', '1 x 12AX7, 1 x 6V6GT, 5Y3', 1, 'cathode', '5Y3'),
+  amp(6, C[4]!, 'two-6L6 combo, fixed bias, tube rectifier', 'LAW-0398', '4 x 12AX7, 2 x 6L6GC, 5AR4', 2, 'fixed', '5AR4'),
+  amp(7, C[5]!, 'bass head, four 6550, fixed bias', 'LAW-0377', '3 x 12AX7, 1 x 12AU7, 4 x 6550', 4, 'fixed'),
+  amp(8, C[2]!, '30 W four-EL84 combo, cathode biased', 'LAW-0440', '3 x 12AX7, 4 x EL84', 4, 'cathode'),
+]
+const A = DEMO_AMPS.map(a => a.id)
+
+type State = 'checked-in' | 'on-bench' | 'waiting-parts' | 'soak' | 'ready' | 'handed-back' | 'closed' | 'cancelled'
+export interface DemoJob {
+  id: string, customerId: string, ampId: string, complaint: string, accessories: string, promisedFor: number | null,
+  assignedTo: string | null, priority: 'low' | 'normal' | 'rush', daysAgo: number, path: State[]
+}
+const job = (n: number, customerId: string, ampId: string, complaint: string, daysAgo: number, path: State[], extra: Partial<DemoJob> = {}): DemoJob =>
+  ({ id: idOf('003', n), customerId, ampId, complaint, accessories: '', promisedFor: null, assignedTo: TECH!, priority: 'normal', daysAgo, path, ...extra })
+
+export const DEMO_JOBS: DemoJob[] = [
+  job(1, C[0]!, A[0]!, 'Crackles and cuts out when warm; rectifier glows unevenly.', 6, ['checked-in', 'on-bench', 'soak', 'ready'], { accessories: 'Footswitch, cover', promisedFor: 0 }),
+  job(2, C[1]!, A[1]!, 'Hum at idle, one power tube glows red.', 3, ['checked-in', 'on-bench'], { priority: 'rush', promisedFor: 2 }),
+  job(3, C[1]!, A[2]!, 'Retube and bias before a tour; spare quad in the case.', 1, ['checked-in'], { assignedTo: null, accessories: 'Spare matched quad 6L6GC', promisedFor: 5 }),
+  job(4, C[2]!, A[3]!, 'No sound; fuse blows at switch-on.', 5, ['checked-in', 'on-bench', 'waiting-parts'], { promisedFor: 7 }),
+  job(5, C[3]!, A[4]!, 'Intermittent volume drop; scratchy pot.', 4, ['checked-in', 'on-bench', 'soak']),
+  job(6, C[4]!, A[5]!, 'Full service: caps, tubes, bias.', 7, ['checked-in', 'on-bench', 'ready', 'handed-back'], { priority: 'low' }),
+  job(7, C[5]!, A[6]!, 'Loses output after twenty minutes.', 7, ['checked-in', 'on-bench', 'soak', 'ready', 'handed-back', 'closed']),
+  job(8, C[2]!, A[7]!, 'Check over before selling.', 2, ['checked-in', 'cancelled'], { assignedTo: null }),
+]
+const J = DEMO_JOBS.map(j => j.id)
+
+export const DEMO_PARTS = [
+  { id: idOf('004', 1), jobId: J[0]!, description: 'Matched pair EL84', quantity: 1, unitCostCents: 3100, unitPriceCents: 5200 },
+  { id: idOf('004', 2), jobId: J[0]!, description: 'EZ81 rectifier', quantity: 1, unitCostCents: 1900, unitPriceCents: 3200 },
+  { id: idOf('004', 3), jobId: J[1]!, description: 'Matched pair 6V6GT', quantity: 1, unitCostCents: 3800, unitPriceCents: 6400 },
+  { id: idOf('004', 4), jobId: J[3]!, description: 'Output transformer (on order)', quantity: 1, unitCostCents: 9500, unitPriceCents: 14500 },
+  { id: idOf('004', 5), jobId: J[5]!, description: 'Filter capacitor 47 µF 450 V', quantity: 4, unitCostCents: 350, unitPriceCents: 700 },
+  { id: idOf('004', 6), jobId: J[6]!, description: 'Screen resistor 470 Ω 5 W', quantity: 4, unitCostCents: 60, unitPriceCents: 150 },
+]
+
+export const DEMO_LABOUR = [
+  { id: idOf('005', 1), jobId: J[0]!, description: 'Diagnose, retube, check cathode bias', minutes: 90, rateCents: 9000, techId: TECH! },
+  { id: idOf('005', 2), jobId: J[1]!, description: 'Diagnose hum', minutes: 45, rateCents: 9000, techId: TECH! },
+  { id: idOf('005', 3), jobId: J[5]!, description: 'Recap, retube, set bias', minutes: 150, rateCents: 9000, techId: TECH! },
+  { id: idOf('005', 4), jobId: J[6]!, description: 'Find and fix thermal fault', minutes: 120, rateCents: 9000, techId: TECH! },
+]
+
+/** Dana's ready job carries a sent invoice (number 1). */
+export const DEMO_INVOICE = { id: idOf('006', 1), jobId: J[0]!, number: 1, createdBy: DESK! }
+export const demoEventId = (jobIndex: number, step: number) => idOf('007', jobIndex * 100 + step)

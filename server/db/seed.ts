@@ -3,9 +3,11 @@ import { drizzle } from 'drizzle-orm/mysql2'
 import { createPool } from 'mysql2/promise'
 import { Hash } from '@adonisjs/hash'
 import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
-import { sql } from 'drizzle-orm'
+import { eq, inArray, sql } from 'drizzle-orm'
+import type { MySqlTransaction } from 'drizzle-orm/mysql-core'
 import * as schema from './schema/index'
-import { DEMO_SHOP, DEMO_USERS } from './demo'
+import { invoiceTotals, labourTotalCents, partTotalCents } from '../../shared/utils/jobs/money'
+import { DEMO_AMPS, DEMO_CUSTOMERS, DEMO_INVOICE, DEMO_JOBS, DEMO_LABOUR, DEMO_PARTS, DEMO_SEED_CLIENT, DEMO_SETTINGS, DEMO_SHOP, DEMO_USERS, demoEventId } from './demo'
 
 const url = process.env.NUXT_DATABASE_URL
 if (!url) {
@@ -15,6 +17,88 @@ if (!url) {
 const password = process.env.TW_DEMO_PASSWORD || 'tubewright-demo'
 // Same scrypt defaults as nuxt-auth-utils' hashPassword, so the server verifies these hashes.
 const hash = new Hash(new Scrypt({}))
+
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- the seed's own drizzle instance
+type Tx = MySqlTransaction<any, any, typeof schema, any>
+const SHOP = DEMO_SHOP.id
+const OWNER = DEMO_USERS[0]!.id
+const DESK = DEMO_USERS[2]!.id
+const HOUR = 3_600_000
+
+/**
+ * The demo jobs, parts, labour, timeline and invoice. Rows already there are left alone; each
+ * new row takes the next shop version (under the version row's lock) so it syncs down like any
+ * other change.
+ */
+async function seedJobs(tx: Tx) {
+  await tx.insert(schema.shopVersions).ignore().values({ shopId: SHOP })
+  const [row] = await tx.select().from(schema.shopVersions).where(eq(schema.shopVersions.shopId, SHOP)).for('update')
+  let version = row?.version ?? 0
+  const start = version
+  const now = Date.now()
+  const day = (d: number) => new Date(now - d * 24 * HOUR)
+  const stamps = (fields: object, v: number, by: string, at: Date) =>
+    Object.fromEntries(Object.keys(fields).map(k => [k, { v, c: DEMO_SEED_CLIENT, u: by, at: at.toISOString() }]))
+
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any -- one helper for the five synced tables
+  async function missing<T extends { id: string }>(table: any, rows: T[]): Promise<T[]> {
+    const have = await tx.select({ id: table.id }).from(table).where(inArray(table.id, rows.map(r => r.id))) as { id: string }[]
+    return rows.filter(r => !have.some(h => h.id === r.id))
+  }
+  const synced = (fields: object, by: string, at: Date) => {
+    version++
+    return { shopId: SHOP, version, fieldStamps: stamps(fields, version, by, at), createdBy: by, updatedBy: by, createdAt: at, updatedAt: at }
+  }
+
+  await tx.insert(schema.shopSettings).ignore().values({ shopId: SHOP, ...DEMO_SETTINGS })
+  const jobAt = new Map(DEMO_JOBS.map(j => [j.id, day(j.daysAgo)]))
+  for (const { id, ...f } of await missing(schema.customers, DEMO_CUSTOMERS)) {
+    await tx.insert(schema.customers).values({ id, ...f, ...synced(f, DESK, day(8)) })
+  }
+  for (const { id, ...f } of await missing(schema.amps, DEMO_AMPS)) {
+    await tx.insert(schema.amps).values({ id, ...f, ...synced(f, DESK, day(8)) })
+  }
+  for (const j of await missing(schema.jobs, DEMO_JOBS)) {
+    const at = jobAt.get(j.id)!
+    const status = j.path.at(-1)!
+    const promisedFor = j.promisedFor === null ? '' : new Date(now + j.promisedFor * 24 * HOUR).toISOString().slice(0, 10)
+    const f = { customerId: j.customerId, ampId: j.ampId, complaint: j.complaint, accessories: j.accessories, photos: [] as string[], promisedFor, assignedTo: j.assignedTo, priority: j.priority, status }
+    await tx.insert(schema.jobs).values({ id: j.id, ...f, ...synced(f, DESK, at) })
+    // The timeline: one event per move, a few hours apart.
+    for (const [step, to] of j.path.entries()) {
+      version++
+      const by = step === 0 ? DESK : j.assignedTo ?? OWNER
+      await tx.insert(schema.jobEvents).ignore().values({
+        id: demoEventId(DEMO_JOBS.indexOf(j), step), shopId: SHOP, jobId: j.id, fromStatus: step === 0 ? null : j.path[step - 1]!,
+        toStatus: to, byUser: by, at: new Date(at.getTime() + step * 5 * HOUR), version,
+      })
+    }
+  }
+  for (const { id, ...f } of await missing(schema.jobParts, DEMO_PARTS)) {
+    await tx.insert(schema.jobParts).values({ id, ...f, ...synced(f, DEMO_USERS[1]!.id, new Date(jobAt.get(f.jobId)!.getTime() + 6 * HOUR)) })
+  }
+  for (const { id, ...f } of await missing(schema.jobLabour, DEMO_LABOUR)) {
+    await tx.insert(schema.jobLabour).values({ id, ...f, ...synced(f, DEMO_USERS[1]!.id, new Date(jobAt.get(f.jobId)!.getTime() + 6 * HOUR)) })
+  }
+  const [invoice] = await tx.select({ id: schema.invoices.id }).from(schema.invoices).where(eq(schema.invoices.id, DEMO_INVOICE.id))
+  if (!invoice) {
+    const parts = DEMO_PARTS.filter(p => p.jobId === DEMO_INVOICE.jobId)
+    const labour = DEMO_LABOUR.filter(l => l.jobId === DEMO_INVOICE.jobId)
+    const totals = invoiceTotals(parts, labour, DEMO_SETTINGS.taxRateBasisPoints)
+    version++
+    await tx.insert(schema.invoices).values({
+      id: DEMO_INVOICE.id, shopId: SHOP, jobId: DEMO_INVOICE.jobId, number: DEMO_INVOICE.number, kind: 'invoice', state: 'sent',
+      lines: [
+        ...parts.map(p => ({ kind: 'part' as const, description: p.description, quantity: p.quantity, unitCents: p.unitPriceCents, totalCents: partTotalCents(p) })),
+        ...labour.map(l => ({ kind: 'labour' as const, description: l.description, quantity: l.minutes / 60, unitCents: l.rateCents, totalCents: labourTotalCents(l) })),
+      ],
+      ...totals, taxRateBasisPoints: DEMO_SETTINGS.taxRateBasisPoints, currency: DEMO_SETTINGS.currency, issuedAt: day(0.5), version,
+    })
+    await tx.insert(schema.invoiceCounters).values({ shopId: SHOP, kind: 'invoice', last: DEMO_INVOICE.number })
+      .onDuplicateKeyUpdate({ set: { last: sql`GREATEST(${schema.invoiceCounters.last}, ${DEMO_INVOICE.number})` } })
+  }
+  if (version !== start) await tx.update(schema.shopVersions).set({ version }).where(eq(schema.shopVersions.shopId, SHOP))
+}
 
 const pool = createPool({ uri: url, timezone: 'Z', connectionLimit: 2 })
 const db = drizzle(pool, { schema, mode: 'planetscale' })
@@ -28,6 +112,7 @@ try {
       await tx.insert(schema.memberships).values({ shopId: DEMO_SHOP.id, userId: u.id, role: u.role })
         .onDuplicateKeyUpdate({ set: { role: sql`role` } })
     }
+    await seedJobs(tx as unknown as Tx)
   })
   console.log(`[tubewright] Demo shop "${DEMO_SHOP.name}" seeded.`)
 }

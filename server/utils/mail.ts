@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto'
 import nodemailer from 'nodemailer'
 import type { Transporter } from 'nodemailer'
 
@@ -19,15 +20,26 @@ function useTransport() {
   return transport
 }
 
-export async function sendMail(message: { to: string, subject: string, text: string }) {
+/** Sends one message and records it in sent_mail (the owner's Outbox), delivered or not. */
+export async function sendMail(message: { to: string, subject: string, text: string, shopId?: string | null }) {
   const config = useRuntimeConfig()
+  const { shopId = null, ...mail } = message
+  let delivered = false
   try {
-    await useTransport().sendMail({ from: config.mailFrom, ...message })
-    return true
+    await useTransport().sendMail({ from: config.mailFrom, ...mail })
+    delivered = true
   }
   catch (error) {
     // Mail is a courtesy: the caller still answers with the link, so nothing is lost.
     console.error('mail not sent:', (error as Error).message)
-    return false
   }
+  try {
+    await useDb().insert(tables.sentMail).values({
+      id: randomUUID(), shopId, toAddress: mail.to, subject: mail.subject.slice(0, 300), body: mail.text, delivered,
+    })
+  }
+  catch (error) {
+    console.error('mail not logged:', (error as Error).message)
+  }
+  return delivered
 }

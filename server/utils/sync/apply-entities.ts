@@ -8,13 +8,13 @@ import { ENTITY_POLICIES } from './entity-policies'
 const stampFor = (ctx: ApplyContext) => ({ v: ctx.version, c: ctx.clientId, u: ctx.userId, at: ctx.now.toISOString() })
 
 function allowed(ctx: ApplyContext, roles: readonly string[], verb: string, table: EntityTable) {
-  if (!roles.includes(ctx.role)) reject(`your role may not ${verb} ${table}`)
+  if (!roles.includes(ctx.role)) reject(`your role may not ${verb} ${table}`, 'forbidden')
 }
 
 async function lock(ctx: ApplyContext, table: EntityTable, id: string) {
   const t = ENTITY_POLICIES[table].table
   const [row] = await ctx.tx.select().from(t).where(and(eq(t.id, id), eq(t.shopId, ctx.shopId))).for('update')
-  if (!row) reject(`${table} record not found`)
+  if (!row) reject(`${table} record not found`, 'missing')
   return row as Record<string, unknown> & { id: string, fieldStamps: FieldStamps, deletedAt: Date | null, updatedBy: string | null, updatedAt: Date }
 }
 

@@ -13,17 +13,33 @@ export interface ApplyContext {
   mutationUuid: string
   baseVersion?: number
   now: Date
+  /** Work to do once the transaction has committed (e-mail); dropped if the mutation is rejected. */
+  afterCommit: (() => Promise<unknown>)[]
 }
 
 export type ApplyOutcome =
   | { status: 'applied' | 'conflict', touched: true, reason?: string }
   | { status: 'rejected', touched: false, reason: string }
 
-export class Rejection extends Error {}
+/** Why a mutation was refused: REST answers 400, 403 or 404 from it; sync logs the reason. */
+export type RejectionKind = 'invalid' | 'forbidden' | 'missing'
+
+export class Rejection extends Error {
+  constructor(message: string, readonly kind: RejectionKind = 'invalid') {
+    super(message)
+  }
+}
 
 /** Throw inside an apply function to reject the mutation (nothing it wrote is kept). */
-export const reject = (reason: string): never => {
-  throw new Rejection(reason)
+export const reject = (reason: string, kind: RejectionKind = 'invalid'): never => {
+  throw new Rejection(reason, kind)
+}
+
+/** Run after-commit work without holding up the answer; each task handles its own failure. */
+export function runAfterCommit(tasks: (() => Promise<unknown>)[]) {
+  for (const task of tasks) {
+    task().catch(error => console.error('after-commit task failed:', (error as Error).message))
+  }
 }
 
 export type ApplyTable = { [N in MutationName]: (ctx: ApplyContext, args: MutationArgs<N>) => Promise<ApplyOutcome> }

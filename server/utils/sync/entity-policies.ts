@@ -70,6 +70,11 @@ export const ENTITY_POLICIES: Record<EntityTable, EntityPolicy> = {
         id: randomUUID(), shopId: ctx.shopId, jobId: String(next.id), fromStatus: before?.status ?? null,
         toStatus: next.status as JobState, byUser: ctx.userId, at: ctx.now, version: ctx.version,
       })
+      if (before && next.status === 'ready') {
+        const { shopId } = ctx
+        const jobId = String(next.id)
+        ctx.afterCommit.push(() => sendReadyMail(shopId, jobId))
+      }
     },
   },
   jobParts: {

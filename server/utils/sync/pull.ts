@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto'
-import { and, asc, eq, gt, inArray, isNull, lte, or, type SQL } from 'drizzle-orm'
+import { and, asc, eq, gt, inArray, isNull, lte, ne, or, type SQL } from 'drizzle-orm'
 import { ENTITY_FIELDS, ENTITY_TABLES, type EntityTable } from '#shared/utils/sync/entities'
 import { ENTITY_POLICIES } from './entity-policies'
 import { PULL_PAGE_SIZE, SYNC_SCHEMA_VERSION, type PullBody, type PullReply, type RowChange, type SyncedTable } from '#shared/utils/sync/protocol'
@@ -75,8 +75,9 @@ async function readJobEvents(tx: Tx, a: Access, scope: Scope | null, from: numbe
 
 async function readInvoices(tx: Tx, a: Access, scope: Scope | null, from: number, to: number): Promise<RowChange[]> {
   const t = tables.invoices
+  // A draft is the shop's working copy: the customer sees it once it is sent.
   const rows = await tx.select().from(t)
-    .where(and(eq(t.shopId, a.shopId), gt(t.version, from), lte(t.version, to), scope ? inIds(t.jobId, scope.jobIds) : undefined))
+    .where(and(eq(t.shopId, a.shopId), gt(t.version, from), lte(t.version, to), scope ? and(inIds(t.jobId, scope.jobIds), ne(t.state, 'draft')) : undefined))
     .orderBy(asc(t.version)).limit(PULL_PAGE_SIZE + 1)
   return rows.map(r => ({
     table: 'invoices', id: r.id, version: r.version, deleted: r.state === 'void',

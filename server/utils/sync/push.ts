@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto'
 import { and, eq, sql } from 'drizzle-orm'
 import { canonicalJson, isMutationName, MUTATION_ARGS, SYNC_SCHEMA_VERSION, type Mutation, type MutationResult, type PushBody, type PushReply } from '#shared/utils/sync/protocol'
 import type { Role } from '#shared/utils/roles'
-import { Rejection, type ApplyContext, type ApplyOutcome } from './context'
+import { Rejection, runAfterCommit, type ApplyContext, type ApplyOutcome } from './context'
 import { APPLY } from './apply'
 import { withRetry } from './errors'
 
@@ -30,7 +30,10 @@ type Access = { userId: string, shopId: string, role: Role }
  * in that order), every mutation is applied with its log entry, and lmid advances with them.
  */
 async function applyBatch(access: Access, clientId: string, mutations: Mutation[]): Promise<MutationResult[]> {
-  return withRetry(() => useDb().transaction(async (tx) => {
+  let afterCommit: (() => Promise<unknown>)[] = []
+  const results = await withRetry(() => useDb().transaction(async (tx) => {
+    // A retried transaction starts over, and so does its after-commit work.
+    afterCommit = []
     const [client] = await tx.select({ lmid: tables.syncClients.lmid }).from(tables.syncClients)
       .where(eq(tables.syncClients.id, clientId)).for('update')
     const [shopRow] = await tx.select({ version: tables.shopVersions.version }).from(tables.shopVersions)
@@ -64,8 +67,10 @@ async function applyBatch(access: Access, clientId: string, mutations: Mutation[
       else {
         try {
           const apply = APPLY[m.name as keyof typeof APPLY] as (ctx: ApplyContext, args: unknown) => Promise<ApplyOutcome>
+          const queued: (() => Promise<unknown>)[] = []
           // A savepoint, so a rejected mutation leaves nothing behind but its log entry.
-          outcome = await tx.transaction(inner => apply({ tx: inner, ...access, clientId, version: next, mutationUuid: m.uuid, baseVersion: m.baseVersion, now: new Date() }, parsed.data))
+          outcome = await tx.transaction(inner => apply({ tx: inner, ...access, clientId, version: next, mutationUuid: m.uuid, baseVersion: m.baseVersion, now: new Date(), afterCommit: queued }, parsed.data))
+          afterCommit.push(...queued)
         }
         catch (error) {
           if (!(error instanceof Rejection)) throw error
@@ -84,6 +89,9 @@ async function applyBatch(access: Access, clientId: string, mutations: Mutation[
     if (lmid !== startLmid) await tx.update(tables.syncClients).set({ lmid, lastSeenAt: sql`CURRENT_TIMESTAMP(3)` }).where(eq(tables.syncClients.id, clientId))
     return results
   }))
+  // Only mutations applied by this push queue work: a duplicate is skipped above, so it sends nothing.
+  runAfterCommit(afterCommit)
+  return results
 }
 
 export async function handlePush(access: Access, body: PushBody): Promise<PushReply> {

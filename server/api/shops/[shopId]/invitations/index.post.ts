@@ -17,6 +17,7 @@ export default defineEventHandler(async (event) => {
   const [shop] = await db.select({ name: tables.shops.name }).from(tables.shops).where(eq(tables.shops.id, shopId))
   const link = `${useRuntimeConfig().publicOrigin}/invite/${token}`
   const mailed = await sendMail({
+    shopId,
     to: email,
     subject: `You're invited to ${shop?.name ?? 'a shop'} on Tubewright`,
     text: `You have been invited to join ${shop?.name ?? 'a shop'} on Tubewright as ${ROLE_LABELS[role]}.\n\n`

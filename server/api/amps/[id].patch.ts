@@ -1,0 +1,8 @@
+import { ampPatchBody, idParams } from '#shared/utils/jobs/schemas'
+
+export default defineEventHandler(async (event) => {
+  const access = await requireActiveShopRole(event, ['owner', 'desk', 'tech'])
+  const { id } = await validParams(event, idParams)
+  const fields = await validBody(event, ampPatchBody)
+  return patchEntity(access, 'amps', id, fields)
+})

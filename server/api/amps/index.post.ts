@@ -1,0 +1,9 @@
+import { ampCreateBody } from '#shared/utils/jobs/schemas'
+
+export default defineEventHandler(async (event) => {
+  const access = await requireActiveShopRole(event, ['owner', 'desk', 'tech'])
+  const body = await validBody(event, ampCreateBody)
+  const amp = await createEntity(access, 'amps', body)
+  setResponseStatus(event, 201)
+  return amp
+})

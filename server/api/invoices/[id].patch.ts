@@ -1,0 +1,23 @@
+import { eq } from 'drizzle-orm'
+import { idParams, INVOICE_MOVES, invoicePatchBody } from '#shared/utils/jobs/schemas'
+import { runAfterCommit } from '../../utils/sync/context'
+import { withRetry } from '../../utils/sync/errors'
+
+export default defineEventHandler(async (event) => {
+  const access = await requireActiveShopRole(event, ['owner', 'desk'])
+  const { id } = await validParams(event, idParams)
+  const { state } = await validBody(event, invoicePatchBody)
+  const db = useDb()
+  const before = await findInvoice(db, access.shopId, id)
+  await withRetry(() => db.transaction(async (tx) => {
+    const version = await nextShopVersion(tx, access.shopId)
+    const current = await findInvoice(tx, access.shopId, id, { lock: true })
+    if (!INVOICE_MOVES[current.state]?.includes(state)) {
+      throw createError({ statusCode: 400, message: `A ${current.state} ${current.kind} cannot be marked ${state}.` })
+    }
+    await tx.update(tables.invoices).set({ state, version, ...(state === 'sent' ? { issuedAt: new Date() } : {}) }).where(eq(tables.invoices.id, id))
+    await audit(tx, { shopId: access.shopId, userId: access.userId, action: `invoice.${state}`, detail: { invoiceId: id } })
+  }))
+  if (state === 'sent') runAfterCommit([() => sendInvoiceMail(access.shopId, before)])
+  return findInvoice(db, access.shopId, id)
+})

@@ -1,0 +1,11 @@
+import { idParams, invoiceCreateBody } from '#shared/utils/jobs/schemas'
+import { withRetry } from '../../../utils/sync/errors'
+
+export default defineEventHandler(async (event) => {
+  const access = await requireActiveShopRole(event, ['owner', 'desk'])
+  const { id } = await validParams(event, idParams)
+  const { kind } = await validBody(event, invoiceCreateBody)
+  const invoice = await withRetry(() => createInvoice(access, id, kind))
+  setResponseStatus(event, 201)
+  return invoice
+})

@@ -1,0 +1,9 @@
+import { jobCreateBody } from '#shared/utils/jobs/schemas'
+
+export default defineEventHandler(async (event) => {
+  const access = await requireActiveShopRole(event, ['owner', 'desk'])
+  const body = await validBody(event, jobCreateBody)
+  const job = await createEntity(access, 'jobs', body)
+  setResponseStatus(event, 201)
+  return job
+})

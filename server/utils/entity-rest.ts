@@ -1,0 +1,49 @@
+import { randomUUID } from 'node:crypto'
+import { and, eq, isNull } from 'drizzle-orm'
+import { ENTITY_PREFIX, type EntityTable } from '#shared/utils/sync/entities'
+import type { MutationArgs, MutationName } from '#shared/utils/sync/protocol'
+import type { ShopAccess } from './authz'
+import { applyDirect } from './sync/direct'
+import { ENTITY_POLICIES } from './sync/entity-policies'
+
+const LABEL: Record<EntityTable, string> = { customers: 'Customer', amps: 'Amp', jobs: 'Job', jobParts: 'Part', jobLabour: 'Labour line' }
+
+/** A record as the REST routes show it: the sync bookkeeping (field stamps) left out. */
+export function publicRow<R extends { fieldStamps?: unknown }>(row: R): Omit<R, 'fieldStamps'> {
+  const { fieldStamps: _stamps, ...rest } = row
+  return rest
+}
+
+/** A live record of this shop, or 404. */
+export async function findEntity(db: Db | Tx, table: EntityTable, shopId: string, id: string) {
+  const t = ENTITY_POLICIES[table].table
+  const [row] = await db.select().from(t).where(and(eq(t.id, id), eq(t.shopId, shopId), isNull(t.deletedAt))).limit(1)
+  if (!row) throw createError({ statusCode: 404, message: `${LABEL[table]} not found.` })
+  return row as Record<string, unknown> & { id: string, fieldStamps: unknown }
+}
+
+type Access = Pick<ShopAccess, 'userId' | 'shopId' | 'role'>
+const run = (access: Access, table: EntityTable, verb: string, args: unknown) =>
+  applyDirect(access, `${ENTITY_PREFIX[table]}.${verb}` as MutationName, args as MutationArgs<MutationName>)
+
+export async function createEntity(access: Access, table: EntityTable, body: { id?: string } & Record<string, unknown>) {
+  const id = body.id ?? randomUUID()
+  await run(access, table, 'create', { ...body, id })
+  return publicRow(await findEntity(useDb(), table, access.shopId, id))
+}
+
+export async function patchEntity(access: Access, table: EntityTable, id: string, fields: Record<string, unknown>) {
+  // A deleted record answers 404 rather than being edited into a conflict.
+  await findEntity(useDb(), table, access.shopId, id)
+  await run(access, table, 'setFields', { id, fields })
+  return publicRow(await findEntity(useDb(), table, access.shopId, id))
+}
+
+export async function deleteEntity(access: Access, table: EntityTable, id: string) {
+  await findEntity(useDb(), table, access.shopId, id)
+  await run(access, table, 'delete', { id })
+  return { id, deleted: true }
+}
+
+/** `%` and `_` typed by a person are meant literally. */
+export const likePattern = (q: string) => `%${q.replace(/[\\%_]/g, c => `\\${c}`)}%`

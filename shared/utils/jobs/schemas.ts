@@ -1,0 +1,65 @@
+// Payloads of the jobs REST routes. Record fields reuse the sync schemas, so a REST edit and
+// an offline edit are checked by the same rules.
+import { z } from 'zod'
+import { ENTITY_FIELDS } from '../sync/entities'
+import { JOB_STATES } from './states'
+
+const id = z.uuid({ message: 'must be an id' })
+export const idParams = z.object({ id })
+
+const page = z.coerce.number().int().min(1, { message: 'at least 1' }).max(100_000).default(1)
+const pageSize = z.coerce.number().int().min(1, { message: 'at least 1' }).max(100, { message: 'at most 100' }).default(25)
+const q = z.string().trim().max(100, { message: 'at most 100 characters' }).optional()
+
+export const JOB_SORTS = ['updatedAt', 'promisedFor', 'status', 'priority'] as const
+
+export const jobListQuery = z.object({
+  status: z.string().optional().transform((s, ctx) => {
+    if (!s) return undefined
+    const list = s.split(',').map(x => x.trim()).filter(Boolean)
+    const bad = list.find(x => !(JOB_STATES as readonly string[]).includes(x))
+    if (bad) {
+      ctx.addIssue({ code: 'custom', message: `unknown status "${bad.slice(0, 30)}"` })
+      return z.NEVER
+    }
+    return list as (typeof JOB_STATES)[number][]
+  }),
+  tech: id.optional(),
+  customer: id.optional(),
+  q,
+  sort: z.enum(JOB_SORTS).default('updatedAt'),
+  dir: z.enum(['asc', 'desc']).default('desc'),
+  page,
+  pageSize,
+})
+
+export const searchQuery = z.object({ q, page, pageSize })
+
+/** Create: the sync create's fields; the id may be sent (client-made) or left to the server. */
+const createBody = <S extends z.ZodObject>(fields: S) => fields.partial().extend({ id: id.optional() })
+const patchBody = <S extends z.ZodObject>(fields: S) => fields.partial().refine(f => Object.keys(f).length > 0, { message: 'change at least one field' })
+
+export const jobCreateBody = createBody(ENTITY_FIELDS.jobs)
+export const jobPatchBody = patchBody(ENTITY_FIELDS.jobs)
+export const customerCreateBody = createBody(ENTITY_FIELDS.customers)
+export const customerPatchBody = patchBody(ENTITY_FIELDS.customers)
+export const ampCreateBody = createBody(ENTITY_FIELDS.amps)
+export const ampPatchBody = patchBody(ENTITY_FIELDS.amps)
+
+export const settingsPatchBody = z.object({
+  labourRateCents: z.number().int({ message: 'must be whole cents' }).min(0).max(10_000_000),
+  taxRateBasisPoints: z.number().int({ message: 'must be whole basis points' }).min(0).max(10_000, { message: 'at most 10000 (100 %)' }),
+  currency: z.string().regex(/^[A-Za-z]{3}$/, { message: 'use a three-letter currency code' }).transform(s => s.toLowerCase()),
+  readyEmail: z.boolean(),
+}).partial().refine(f => Object.keys(f).length > 0, { message: 'change at least one setting' })
+
+export const invoiceCreateBody = z.object({ kind: z.enum(['estimate', 'invoice']) })
+export const invoicePatchBody = z.object({ state: z.enum(['sent', 'void']) })
+
+/** The only invoice moves a person can make; 'paid' comes from the payment provider alone. */
+export const INVOICE_MOVES: Record<string, readonly string[]> = {
+  draft: ['sent', 'void'],
+  sent: ['void'],
+  paid: [],
+  void: [],
+}
