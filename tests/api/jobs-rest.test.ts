@@ -66,6 +66,10 @@ describe('jobs over REST', () => {
     const r = await tech.post('/api/sync/push', body)
     expect(r.body.results[0].status).toBe('conflict')
     expect((await tech.get(`/api/jobs/${job.id}`)).body.complaint).toBe('Changed at the desk')
+    // Decide it, so the demo shop is left with no open conflict for later suites.
+    const [c] = await sql<{ id: string }>('select id from sync_conflicts where row_id = ? and status = ?', [job.id, 'open'])
+    const resolved = await tech.post('/api/sync/push', { ...body, mutations: [{ id: 2, uuid: randomUUID(), name: 'conflict.resolve', args: { id: c!.id, value: 'Changed at the desk' } }] })
+    expect(resolved.body.results[0].status).toBe('applied')
   })
 
   it('answers 400 with a message for bad input, never 500', async () => {
