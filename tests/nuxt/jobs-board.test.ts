@@ -1,4 +1,5 @@
 import { beforeEach, describe, expect, it } from 'vitest'
+import type { VueWrapper } from '@vue/test-utils'
 import { mountSuspended } from '@nuxt/test-utils/runtime'
 import { JobsTable } from '#components'
 import JobsBoardPage from '~/pages/jobs/index.vue'
@@ -19,9 +20,9 @@ async function threeJobs(me: string) {
   await until(() => useJobsStore().board.length === 3 && useJobsStore().board.every(b => b.ampSerial), 'three jobs on the board')
 }
 
-const counts = (w: Awaited<ReturnType<typeof mountSuspended>>) =>
+const counts = (w: VueWrapper) =>
   Object.fromEntries(w.findAll('[data-filter]').map(b => [b.attributes('data-filter'), Number(b.find('[data-testid="filter-count"]').text())]))
-const cardSerials = (w: Awaited<ReturnType<typeof mountSuspended>>) => w.findAll('[data-testid="job-card"]').map(c => c.text().match(/[A-Z]{2}-\w+-\d{4}/)?.[0])
+const cardSerials = (w: VueWrapper) => w.findAll('[data-testid="job-card"]').map(c => c.text().match(/[A-Z]{2}-\w+-\d{4}/)?.[0])
 
 describe('job board', () => {
   it('counts per status, filters by chip, search and my bench, and sorts by the picker', async () => {

@@ -1,4 +1,5 @@
 import { beforeEach, describe, expect, it } from 'vitest'
+import type { VueWrapper } from '@vue/test-utils'
 import { mountSuspended } from '@nuxt/test-utils/runtime'
 import { JobsStatusMoves } from '#components'
 import { JOB_TRANSITIONS } from '#shared/utils/jobs/states'
@@ -11,7 +12,7 @@ beforeEach(() => {
   useSessionStore().me = null
 })
 
-const offered = (w: Awaited<ReturnType<typeof mountSuspended>>) => w.findAll('[data-move]').map(b => b.attributes('data-move'))
+const offered = (w: VueWrapper) => w.findAll('[data-move]').map(b => b.attributes('data-move'))
 
 describe('status moves', () => {
   it('offers only the moves allowed from the current state, and a move goes to the outbox', async () => {
