@@ -8,6 +8,10 @@ export const STORAGE_KEYS = {
   benchTool: (tool: BenchToolId) => `tubewright.bench.${tool}`,
   /** The shop's own tube-library entries, cached for use with no signal. */
   shopTubes: (shopId: string) => `tubewright.tubes.${shopId}`,
+  /** The shop's members (names for ids, techs to assign), cached for use with no signal. */
+  shopPeople: (shopId: string) => `tubewright.people.${shopId}`,
+  /** The shop's labour rate, tax rate and currency, cached for use with no signal. */
+  shopSettings: (shopId: string) => `tubewright.settings.${shopId}`,
   /** Who signed out (or was signed out) with changes still waiting on this device. */
   unsent: 'tubewright.unsent',
   /** IndexedDB: one database per user, `tubewright-<userId>`. */

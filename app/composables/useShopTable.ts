@@ -1,0 +1,27 @@
+import type { LocalDb } from '~/utils/sync/local-db'
+
+type ShopTable = 'customers' | 'amps' | 'jobs' | 'jobParts' | 'jobLabour' | 'jobEvents' | 'invoices' | 'notes'
+type RowOf<K extends ShopTable> = LocalDb[K] extends import('dexie').Table<infer R, string> ? R : never
+
+/** Every live (not deleted) row of one table in the active shop, following the device database. */
+export function useShopTable<K extends ShopTable>(table: K) {
+  const sync = useSyncStore()
+  const rows = useLiveQuery(
+    () => (sync.db && sync.shopId ? (sync.db[table] as import('dexie').Table<RowOf<K>, string>).where('shopId').equals(sync.shopId).toArray() : null),
+    () => [sync.db, sync.shopId],
+    null as RowOf<K>[] | null,
+  )
+  const list = computed(() => (rows.value ?? []).filter(r => !(r as { deleted: boolean }).deleted))
+  /** False until the device database has answered once (loading, not empty). */
+  const loaded = computed(() => rows.value !== null)
+  return { list, loaded }
+}
+
+/** The fields of `next` that differ from `row` (what a setFields should carry). */
+export function changedFields<T extends object>(row: T, next: Partial<T>): Partial<T> {
+  const out: Partial<T> = {}
+  for (const [k, v] of Object.entries(next) as [keyof T, T[keyof T]][]) {
+    if (v !== undefined && JSON.stringify(row[k]) !== JSON.stringify(v)) out[k] = v
+  }
+  return out
+}

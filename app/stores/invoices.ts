@@ -1,0 +1,54 @@
+import { defineStore } from 'pinia'
+import type { InvoiceRow } from '~/utils/sync/local-db'
+
+export const NEEDS_CONNECTION = 'This needs a connection to the shop server. Your other work stays on this device.'
+const PAY_POLL_MS = 2_000
+const PAY_POLL_LIMIT = 90
+
+/** Turns a failed request into words: offline, or what the server said. */
+export const problemOf = (e: unknown) => (statusOf(e) === undefined ? NEEDS_CONNECTION : messageOf(e))
+
+/**
+ * Estimates and invoices. The server writes them (numbers, totals, payment), so the list comes
+ * from sync pull and every action here needs a connection.
+ */
+export const useInvoicesStore = defineStore('invoices', () => {
+  const sync = useSyncStore()
+  const rows = useShopTable('invoices').list
+  const forJob = (jobId: string) => rows.value.filter(i => i.jobId === jobId).sort((a, b) => a.number - b.number)
+  const byId = (id: string) => rows.value.find(i => i.id === id)
+  /** Invoices whose payment went to the payment service and is not yet confirmed. */
+  const paying = ref<string[]>([])
+
+  async function create(jobId: string, kind: InvoiceRow['kind']) {
+    const inv = await $fetch<{ id: string }>(`/api/jobs/${jobId}/invoices`, { method: 'POST', body: { kind } })
+    sync.syncNow()
+    return inv.id
+  }
+
+  async function setState(id: string, state: 'sent' | 'void') {
+    await $fetch(`/api/invoices/${id}`, { method: 'PATCH', body: { state } })
+    sync.syncNow()
+  }
+
+  const fetchOne = (id: string) => $fetch<Record<string, unknown>>(`/api/invoices/${id}`)
+
+  /** Starts a payment; the webhook marks it paid and the change arrives through sync. */
+  async function pay(id: string) {
+    const r = await $fetch<{ paymentId: string, status: string }>(`/api/invoices/${id}/pay`, { method: 'POST' })
+    if (!paying.value.includes(id)) paying.value = [...paying.value, id]
+    void waitForPaid(id)
+    return r
+  }
+
+  async function waitForPaid(id: string) {
+    for (let i = 0; i < PAY_POLL_LIMIT; i++) {
+      sync.syncNow()
+      await new Promise(r => setTimeout(r, PAY_POLL_MS))
+      if (byId(id)?.state === 'paid') break
+    }
+    paying.value = paying.value.filter(p => p !== id)
+  }
+
+  return { forJob, byId, paying, create, setState, fetchOne, pay }
+})
