@@ -1,6 +1,6 @@
 import { mkdirSync } from 'node:fs'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { chromium } from 'playwright-core'
+import { launch } from './helpers/browser'
 import type { Browser, Page } from 'playwright-core'
 
 const BASE = (process.env.TW_TEST_URL ?? '').replace(/\/$/, '')
@@ -9,10 +9,7 @@ let browser: Browser
 
 beforeAll(async () => {
   if (!BASE) throw new Error('TW_TEST_URL is not set: run through npm test (scripts/test.mjs).')
-  browser = await chromium.launch({
-    executablePath: '/usr/bin/chromium',
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
-  })
+  browser = await launch()
 })
 
 afterAll(async () => {

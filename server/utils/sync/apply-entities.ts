@@ -2,10 +2,8 @@ import { and, eq } from 'drizzle-orm'
 import { ENTITY_FIELDS, parseEntityCreate, type EntityTable } from '#shared/utils/sync/entities'
 import type { FieldStamps } from '../../db/schema/notebook'
 import { reject, type ApplyContext, type ApplyOutcome } from './context'
-import { recordConflict } from './conflicts'
+import { changedByOthers, recordConflict, stampFor } from './conflicts'
 import { ENTITY_POLICIES } from './entity-policies'
-
-const stampFor = (ctx: ApplyContext) => ({ v: ctx.version, c: ctx.clientId, u: ctx.userId, at: ctx.now.toISOString() })
 
 function allowed(ctx: ApplyContext, roles: readonly string[], verb: string, table: EntityTable) {
   if (!roles.includes(ctx.role)) reject(`your role may not ${verb} ${table}`, 'forbidden')
@@ -49,9 +47,8 @@ export async function entitySetFields(ctx: ApplyContext, table: EntityTable, arg
     }
     return { status: 'conflict', touched: true, reason: 'the record was deleted' }
   }
-  const base = ctx.baseVersion ?? 0
   const stamps = { ...row.fieldStamps }
-  const clashing = keys.filter(k => stamps[k] && stamps[k]!.v > base && stamps[k]!.c !== ctx.clientId)
+  const clashing = changedByOthers(ctx, stamps, keys)
   const set: Record<string, unknown> = {}
   for (const k of keys) {
     if (!clashing.includes(k)) {
@@ -77,8 +74,7 @@ export async function entityDelete(ctx: ApplyContext, table: EntityTable, args: 
   allowed(ctx, policy.remove, 'delete', table)
   const row = await lock(ctx, table, args.id)
   if (row.deletedAt) return { status: 'applied', touched: true }
-  const base = ctx.baseVersion ?? 0
-  const clashing = Object.entries(row.fieldStamps).filter(([, s]) => s.v > base && s.c !== ctx.clientId).map(([k]) => k)
+  const clashing = changedByOthers(ctx, row.fieldStamps, Object.keys(row.fieldStamps))
   if (clashing.length) {
     await recordConflict(ctx, { tableName: table, rowId: row.id, field: '_delete', serverValue: null, clientValue: true, serverAuthor: row.updatedBy, serverChangedAt: row.updatedAt, note: 'deleted after someone else edited it' })
     await ctx.tx.update(policy.table).set({ version: ctx.version }).where(eq(policy.table.id, row.id))

@@ -1,8 +1,7 @@
 import { and, eq } from 'drizzle-orm'
-import type { FieldStamps } from '../../db/schema/notebook'
 import type { MutationArgs } from '#shared/utils/sync/protocol'
 import { isStaff, reject, type ApplyContext, type ApplyOutcome } from './context'
-import { recordConflict } from './conflicts'
+import { changedByOthers, recordConflict, stampFor } from './conflicts'
 
 const NOTE_FIELDS = ['body', 'title', 'visibility'] as const
 
@@ -12,17 +11,6 @@ async function lockNote(ctx: ApplyContext, id: string) {
   if (!row) reject('note not found')
   if (!isStaff(ctx.role) && row!.authorId !== ctx.userId) reject('players may change only their own notes')
   return row!
-}
-
-const stampFor = (ctx: ApplyContext) => ({ v: ctx.version, c: ctx.clientId, u: ctx.userId, at: ctx.now.toISOString() })
-
-/** Fields another device changed after the version this mutation was based on. */
-function changedByOthers(ctx: ApplyContext, stamps: FieldStamps, fields: readonly string[]) {
-  const base = ctx.baseVersion ?? 0
-  return fields.filter((f) => {
-    const s = stamps[f]
-    return s && s.v > base && s.c !== ctx.clientId
-  })
 }
 
 export async function noteCreate(ctx: ApplyContext, a: MutationArgs<'note.create'>): Promise<ApplyOutcome> {
