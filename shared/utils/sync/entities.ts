@@ -1,12 +1,19 @@
-// Synced records edited field by field (customers, amps, jobs, parts, labour). Each gets
+// Synced records edited field by field (customers, amps, jobs, parts, labour, procedure runs;
+// procedure gates are created and never changed). Each gets
 // `<prefix>.create`, `.setFields` (with baseVersion), `.delete` and `.restore` mutations.
 import { z } from 'zod'
 import { JOB_PRIORITIES, JOB_STATES } from '../jobs/states'
+import { MAX_REPEAT } from '../procedures/run'
 
 const id = z.uuid({ message: 'must be an id' })
 const text = (max: number) => z.string().trim().max(max, { message: `at most ${max} characters` })
 const cents = z.number().int({ message: 'must be whole cents' }).min(0).max(100_000_000)
 const sha256 = z.string().regex(/^[0-9a-f]{64}$/, { message: 'must be a photo hash' })
+const procedureId = z.string().min(1).max(64)
+const at = z.iso.datetime({ offset: true, message: 'must be a date and time' })
+export const RUN_STATUSES = ['running', 'done', 'stopped'] as const
+const stepKey = z.string().min(1).max(80)
+const stepReading = z.object({ value: z.number().finite().optional(), measurementId: id.optional(), at })
 
 export const ENTITY_FIELDS = {
   customers: z.object({
@@ -51,6 +58,28 @@ export const ENTITY_FIELDS = {
     rateCents: cents,
     techId: id.nullable(),
   }),
+  // Insert-only: who ticked which hazards, when, for which run.
+  procedureGates: z.object({
+    runId: id,
+    procedureId,
+    jobId: id.nullable(),
+    items: z.array(z.string().min(1).max(64)).min(1).max(30),
+    acknowledgedAt: at,
+  }),
+  procedureRuns: z.object({
+    procedureId,
+    gateId: id,
+    variant: z.string().max(40),
+    jobId: id.nullable(),
+    tubeCount: z.number().int().min(1).max(MAX_REPEAT),
+    capCount: z.number().int().min(1).max(MAX_REPEAT),
+    status: z.enum(RUN_STATUSES),
+    stepIndex: z.number().int().min(0).max(500),
+    readings: z.record(stepKey, stepReading).refine(r => Object.keys(r).length <= 500, { message: 'too many readings' }),
+    warnings: z.array(z.object({ step: stepKey, text: z.string().max(500), value: z.number().finite().optional(), at })).max(200),
+    endedAt: z.union([z.literal(''), at]),
+    endReason: text(500),
+  }),
 } as const
 
 export type EntityTable = keyof typeof ENTITY_FIELDS
@@ -62,6 +91,8 @@ export const ENTITY_PREFIX = {
   jobs: 'job',
   jobParts: 'jobPart',
   jobLabour: 'jobLabour',
+  procedureGates: 'procedureGate',
+  procedureRuns: 'procedureRun',
 } as const satisfies Record<EntityTable, string>
 
 type Prefix<T extends EntityTable> = (typeof ENTITY_PREFIX)[T]
@@ -73,6 +104,8 @@ export const ENTITY_DEFAULTS: { [T in EntityTable]: Partial<EntityFields<T>> } =
   jobs: { accessories: '', photos: [], promisedFor: '', assignedTo: null, priority: 'normal', status: 'checked-in' },
   jobParts: { unitCostCents: 0 },
   jobLabour: { description: '', techId: null },
+  procedureGates: { jobId: null },
+  procedureRuns: { variant: '', jobId: null, tubeCount: 2, capCount: 3, status: 'running', stepIndex: 0, readings: {}, warnings: [], endedAt: '', endReason: '' },
 }
 
 function entityMutations<T extends EntityTable>(table: T) {
@@ -100,6 +133,8 @@ export const ENTITY_MUTATIONS = {
   ...entityMutations('jobs'),
   ...entityMutations('jobParts'),
   ...entityMutations('jobLabour'),
+  ...entityMutations('procedureGates'),
+  ...entityMutations('procedureRuns'),
 }
 
 /** `job.setFields` -> { table: 'jobs', verb: 'setFields' }; undefined for non-entity mutations. */
