@@ -1,5 +1,6 @@
 import type { BenchToolId } from '#shared/utils/bench/index'
 import { STORAGE_KEYS } from '~/utils/storage-keys'
+import { INLINE_TOOL } from '~/utils/inline-tool'
 
 type FormState = Record<string, string>
 
@@ -19,8 +20,11 @@ function readSaved<T extends FormState>(key: string, defaults: T): Partial<T> {
 
 /** The tool's form as typed (text, units, choices), remembered on this device between visits. */
 export function useToolMemory<T extends FormState>(tool: BenchToolId, defaults: T) {
-  const key = STORAGE_KEYS.benchTool(tool)
-  const state = reactive({ ...defaults, ...readSaved(key, defaults) }) as T
+  // Inside a procedure the tool keeps its own memory, so a step's presets never change the Bench screen.
+  const inline = inject(INLINE_TOOL, null)
+  const key = inline ? STORAGE_KEYS.procedureTool(tool) : STORAGE_KEYS.benchTool(tool)
+  const presets = Object.fromEntries(Object.entries(inline?.presets ?? {}).filter(([k]) => k in defaults))
+  const state = reactive({ ...defaults, ...readSaved(key, defaults), ...presets }) as T
   watch(state, (value) => {
     try {
       localStorage.setItem(key, JSON.stringify(value))

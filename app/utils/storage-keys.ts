@@ -6,6 +6,8 @@ export const STORAGE_KEYS = {
   theme: 'tubewright.theme',
   /** The last inputs typed into one bench tool, kept on this device. */
   benchTool: (tool: BenchToolId) => `tubewright.bench.${tool}`,
+  /** The same, for the tool as shown inside a procedure step. */
+  procedureTool: (tool: BenchToolId) => `tubewright.procedure-tool.${tool}`,
   /** The shop's own tube-library entries, cached for use with no signal. */
   shopTubes: (shopId: string) => `tubewright.tubes.${shopId}`,
   /** The shop's members (names for ids, techs to assign), cached for use with no signal. */

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { computeTool, isBenchToolId, parseToolInputs } from '../../shared/utils/bench/index'
 import type { BenchToolId } from '../../shared/utils/bench/index'
 import {
-  GATE, PROCEDURES, checkRange, evaluateRun, expandSteps, findProcedure, gateComplete, holdSeconds, mayRun, needsValue, readOutput, validVariant,
+  GATE, PROCEDURES, checkRange, evaluateRun, expandSteps, findProcedure, gateComplete, holdSeconds, mayRun, needsValue, readOutput, toolPresets, validVariant,
 } from '../../shared/utils/procedures/index'
 import type { StepReading } from '../../shared/utils/procedures/index'
 import { ROLES } from '../../shared/utils/roles'
@@ -188,5 +188,19 @@ describe('readOutput', () => {
     expect(readOutput({ sets: [{}, {}] }, 'sets.length')).toBe(2)
     expect(readOutput({ band: 'warm' }, 'band')).toBeUndefined()
     expect(readOutput(null, 'percent')).toBeUndefined()
+  })
+})
+
+describe('toolPresets', () => {
+  const bias = findProcedure('set-fixed-bias')!
+  it('sets the method for the variant, empties the last tube\'s reading and carries the half-primary resistance of the same tube', () => {
+    const steps = expandSteps(bias, 'transformer-resistance', counts)
+    const tube2 = steps.find(s => s.key === 'measure-initial:2')!
+    const readings = { 'primary-resistance:1': { value: 105, at }, 'primary-resistance:2': { value: 112, at } }
+    expect(toolPresets(bias, tube2, 'transformer-resistance', readings)).toEqual({
+      mode: 'fixed', method: 'primary-drop', senseVolts: '', dropVolts: '', halfPrimaryOhms: '112', halfPrimaryOhmsUnit: 'Ω',
+    })
+    const sense = expandSteps(bias, 'sense-resistor', counts).find(s => s.key === 'measure-initial:1')!
+    expect(toolPresets(bias, sense, 'sense-resistor', {})).toEqual({ mode: 'fixed', method: 'sense-resistor', senseVolts: '', dropVolts: '' })
   })
 })

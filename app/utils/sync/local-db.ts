@@ -161,6 +161,8 @@ export class LocalDb extends Dexie {
   jobLabour!: Table<EntityRow<'jobLabour'>, string>
   jobEvents!: Table<JobEventRow, string>
   invoices!: Table<InvoiceRow, string>
+  procedureGates!: Table<EntityRow<'procedureGates'>, string>
+  procedureRuns!: Table<EntityRow<'procedureRuns'>, string>
 
   constructor(name: string) {
     super(name)
@@ -184,7 +186,12 @@ export class LocalDb extends Dexie {
       jobEvents: 'id, shopId, jobId',
       invoices: 'id, shopId, jobId',
     })
+    // Guided procedures: the acknowledged safety check and the run it opens.
+    this.version(3).stores({
+      procedureGates: 'id, shopId, runId, jobId',
+      procedureRuns: 'id, shopId, jobId, status, updatedAt',
+    })
   }
 }
 
-export const VIEW_TABLES = ['notes', 'measurements', 'conflicts', 'customers', 'amps', 'jobs', 'jobParts', 'jobLabour', 'jobEvents', 'invoices'] as const
+export const VIEW_TABLES = ['notes', 'measurements', 'conflicts', 'customers', 'amps', 'jobs', 'jobParts', 'jobLabour', 'jobEvents', 'invoices', 'procedureGates', 'procedureRuns'] as const

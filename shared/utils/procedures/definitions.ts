@@ -11,6 +11,7 @@ const fixedBiasTool = {
   id: 'idle-dissipation',
   presets: { mode: 'fixed', method: 'sense-resistor' },
   variantPresets: { 'transformer-resistance': { method: 'primary-drop' } },
+  fresh: ['senseVolts', 'dropVolts'],
   fromReadings: { halfPrimaryOhms: 'primary-resistance' },
   record: percentRecord,
 } as const
@@ -128,7 +129,7 @@ export const PROCEDURES: readonly ProcedureDefinition[] = [
         id: 'measure',
         title: 'Read the cathode volts',
         instruction: 'Enter the cathode volts, the resistor and the plate voltage. The tool works out the current per tube and the dissipation.',
-        tool: { id: 'idle-dissipation', presets: { mode: 'cathode', method: 'cathode-resistor' }, record: percentRecord },
+        tool: { id: 'idle-dissipation', presets: { mode: 'cathode', method: 'cathode-resistor' }, fresh: ['cathodeVolts'], record: percentRecord },
         expect: {
           max: DEFAULT_IDLE_BANDS.cathode.overAbove / 100,
           reason: 'Above the tubes\' rated plate dissipation. Switch to standby; check the cathode resistor value, its bypass capacitor and the tubes before running it again.',

@@ -86,3 +86,20 @@ export function readOutput(outputs: unknown, path: string): number | undefined {
   }
   return typeof v === 'number' && Number.isFinite(v) ? v : undefined
 }
+
+/** The tool form values a step opens with: its choices, values carried from earlier readings, fresh fields emptied. */
+export function toolPresets(procedure: ProcedureDefinition, step: RunStep, variant: string, readings: Record<string, StepReading>): Record<string, string> {
+  const tool = step.tool
+  if (!tool) return {}
+  const chosen = variant || procedure.variants?.[0]?.id || ''
+  const out: Record<string, string> = { ...tool.presets, ...tool.variantPresets?.[chosen] }
+  for (const key of tool.fresh ?? []) out[key] = ''
+  for (const [field, fromId] of Object.entries(tool.fromReadings ?? {})) {
+    const from = procedure.steps.find(s => s.id === fromId)
+    const reading = readings[step.index && from?.repeat ? `${fromId}:${step.index}` : fromId]
+    if (!from?.reading || typeof reading?.value !== 'number') continue
+    out[field] = String(reading.value)
+    out[`${field}Unit`] = from.reading.unit
+  }
+  return out
+}

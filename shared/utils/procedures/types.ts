@@ -21,6 +21,8 @@ export interface StepTool {
   presets?: Record<string, string>
   /** Extra presets for one variant (the transformer method reads a different input). */
   variantPresets?: Record<string, Record<string, string>>
+  /** Form fields emptied when the step opens, so one tube's reading is never recorded for the next. */
+  fresh?: readonly string[]
   /** Form fields filled from an earlier step's reading (same repeat index when both repeat). */
   fromReadings?: Record<string, string>
   /** The output this step records: a key of the tool's outputs, or `sets.length`. */

@@ -1,0 +1,104 @@
+import { defineStore } from 'pinia'
+import { findProcedure, gateComplete, mayRun, validVariant } from '#shared/utils/procedures/index'
+import type { StepReading } from '#shared/utils/procedures/index'
+import type { EntityFields } from '#shared/utils/sync/entities'
+import type { EntityRow } from '~/utils/sync/local-db'
+
+export type RunRow = EntityRow<'procedureRuns'>
+export type GateRow = EntityRow<'procedureGates'>
+
+const newestFirst = (a: RunRow, b: RunRow) => (a.createdAt < b.createdAt ? 1 : a.createdAt > b.createdAt ? -1 : 0)
+
+export interface RunStart {
+  procedureId: string
+  variant: string
+  jobId: string | null
+  tubeCount: number
+  capCount: number
+  /** Ids of the gate items ticked, one by one. */
+  items: string[]
+}
+
+/** Procedure runs and their safety checks, on the device first; the server refuses a run without its check. */
+export const useProceduresStore = defineStore('procedures', () => {
+  const sync = useSyncStore()
+  const session = useSessionStore()
+  const runTable = useShopTable('procedureRuns')
+  const gateTable = useShopTable('procedureGates')
+
+  const runs = computed(() => [...runTable.list.value].sort(newestFirst))
+  const loaded = computed(() => runTable.loaded.value && gateTable.loaded.value)
+  const mine = computed(() => runs.value.filter(r => r.createdBy === session.user?.id))
+  const unfinished = computed(() => mine.value.filter(r => r.status === 'running'))
+  const find = (id: string) => runs.value.find(r => r.id === id)
+  const forJob = (jobId: string) => runs.value.filter(r => r.jobId === jobId)
+
+  /** The run's own acknowledged safety check, if this device has it. */
+  function gateOf(run: Pick<RunRow, 'id' | 'gateId' | 'procedureId'>): GateRow | undefined {
+    const gate = gateTable.list.value.find(g => g.id === run.gateId)
+    const procedure = findProcedure(run.procedureId)
+    if (!gate || !procedure || gate.runId !== run.id || !gateComplete(procedure, gate.items)) return undefined
+    return gate
+  }
+
+  /** Straight from the device database: the lists above may lag a write by a moment. */
+  async function hasGatedRun(runId: string): Promise<boolean> {
+    const run = await sync.db?.procedureRuns.get(runId)
+    if (!run || run.deleted) return false
+    const gate = await sync.db?.procedureGates.get(run.gateId)
+    const procedure = findProcedure(run.procedureId)
+    return !!gate && !!procedure && gate.runId === run.id && gateComplete(procedure, gate.items)
+  }
+
+  async function start(s: RunStart): Promise<string> {
+    const procedure = findProcedure(s.procedureId)
+    if (!procedure) throw new Error('That procedure does not exist.')
+    if (!session.role || !mayRun(procedure, session.role)) throw new Error('Your role may not run this procedure.')
+    if (!validVariant(procedure, s.variant)) throw new Error('Choose how you will measure.')
+    if (!gateComplete(procedure, s.items)) throw new Error('Tick every item of the safety check first.')
+    const runId = crypto.randomUUID()
+    const gateId = crypto.randomUUID()
+    // The check goes first: the server takes a run only with its check already in place.
+    await sync.mutate('procedureGate.create', {
+      id: gateId, runId, procedureId: s.procedureId, jobId: s.jobId, items: s.items, acknowledgedAt: new Date().toISOString(),
+    })
+    await sync.mutate('procedureRun.create', {
+      id: runId, procedureId: s.procedureId, gateId, variant: s.variant, jobId: s.jobId, tubeCount: s.tubeCount, capCount: s.capCount,
+    })
+    return runId
+  }
+
+  async function change(runId: string, fields: Partial<EntityFields<'procedureRuns'>>) {
+    const row = await sync.db?.procedureRuns.get(runId)
+    if (!row) throw new Error('That run is not on this device.')
+    await sync.mutate('procedureRun.setFields', { id: runId, fields }, row.version)
+  }
+
+  /** Record a step as done (with its reading, if any) and move the run on to `nextIndex`. */
+  async function record(run: RunRow, stepKey: string, reading: StepReading, nextIndex: number) {
+    await change(run.id, { readings: { ...run.readings, [stepKey]: reading }, stepIndex: Math.max(run.stepIndex, nextIndex) })
+  }
+
+  /** A reading outside its range: keep it, note the warning, and stay on the step. */
+  async function stopAt(run: RunRow, stepKey: string, reading: StepReading, reason: string) {
+    await change(run.id, {
+      readings: { ...run.readings, [stepKey]: reading },
+      warnings: [...run.warnings, { step: stepKey, text: reason, ...(reading.value === undefined ? {} : { value: reading.value }), at: reading.at }],
+    })
+  }
+
+  async function clearReading(run: RunRow, stepKey: string) {
+    const { [stepKey]: _gone, ...rest } = run.readings
+    await change(run.id, { readings: rest })
+  }
+
+  async function finish(run: RunRow) {
+    await change(run.id, { status: 'done', endedAt: new Date().toISOString() })
+  }
+
+  async function end(run: RunRow, reason: string) {
+    await change(run.id, { status: 'stopped', endedAt: new Date().toISOString(), endReason: reason.slice(0, 500) })
+  }
+
+  return { runs, loaded, mine, unfinished, find, forJob, gateOf, hasGatedRun, start, record, stopAt, clearReading, finish, end }
+})
