@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm'
-import { datetime, varchar } from 'drizzle-orm/mysql-core'
+import { bigint, datetime, json, varchar } from 'drizzle-orm/mysql-core'
+import type { FieldStamps } from './notebook'
 
 // Shared column helpers: client-generatable UUID keys and UTC millisecond timestamps.
 export const uuid = (name: string) => varchar(name, { length: 36 })
@@ -7,4 +8,17 @@ export const stamp = (name: string) => datetime(name, { mode: 'date', fsp: 3 })
 export const timestamps = () => ({
   createdAt: stamp('created_at').notNull().default(sql`CURRENT_TIMESTAMP(3)`),
   updatedAt: stamp('updated_at').notNull().default(sql`CURRENT_TIMESTAMP(3)`).$onUpdate(() => new Date()),
+})
+
+/** Columns every field-versioned synced record carries. */
+export const synced = () => ({
+  id: uuid('id').primaryKey(),
+  shopId: uuid('shop_id').notNull(),
+  version: bigint('version', { mode: 'number', unsigned: true }).notNull(),
+  fieldStamps: json('field_stamps').$type<FieldStamps>().notNull(),
+  createdBy: uuid('created_by').notNull(),
+  updatedBy: uuid('updated_by'),
+  createdAt: stamp('created_at').notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+  updatedAt: stamp('updated_at').notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+  deletedAt: stamp('deleted_at'),
 })

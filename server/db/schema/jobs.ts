@@ -1,21 +1,8 @@
 import { bigint, boolean, double, index, int, json, mysqlEnum, mysqlTable, primaryKey, text, uniqueIndex, varchar } from 'drizzle-orm/mysql-core'
 import { sql } from 'drizzle-orm'
 import { JOB_PRIORITIES, JOB_STATES } from '../../../shared/utils/jobs/states'
-import { stamp, timestamps, uuid } from './columns'
+import { stamp, synced, timestamps, uuid } from './columns'
 import type { FieldStamps } from './notebook'
-
-/** Columns every field-versioned synced record carries. */
-const synced = () => ({
-  id: uuid('id').primaryKey(),
-  shopId: uuid('shop_id').notNull(),
-  version: bigint('version', { mode: 'number', unsigned: true }).notNull(),
-  fieldStamps: json('field_stamps').$type<FieldStamps>().notNull(),
-  createdBy: uuid('created_by').notNull(),
-  updatedBy: uuid('updated_by'),
-  createdAt: stamp('created_at').notNull().default(sql`CURRENT_TIMESTAMP(3)`),
-  updatedAt: stamp('updated_at').notNull().default(sql`CURRENT_TIMESTAMP(3)`),
-  deletedAt: stamp('deleted_at'),
-})
 
 export const customers = mysqlTable('customers', {
   ...synced(),

@@ -4,6 +4,8 @@ import { randomUUID } from 'node:crypto'
 import type { EntityTable } from '#shared/utils/sync/entities'
 import type { Role } from '#shared/utils/roles'
 import { canTransition, JOB_STATE_LABELS, type JobState } from '#shared/utils/jobs/states'
+import { evaluateRun, findProcedure, gateComplete, mayRun, validVariant, type ProcedureDefinition } from '#shared/utils/procedures/index'
+import type { EntityFields } from '#shared/utils/sync/entities'
 import { reject, type ApplyContext } from './context'
 
 type Row = Record<string, unknown> & { id: string, status?: JobState }
@@ -32,6 +34,47 @@ async function mustBeMember(ctx: ApplyContext, userId: unknown, what: string, ro
   const [m] = await ctx.tx.select({ role: tables.memberships.role }).from(tables.memberships)
     .where(and(eq(tables.memberships.shopId, ctx.shopId), eq(tables.memberships.userId, String(userId))))
   if (!m || (roles && !roles.includes(m.role))) reject(`${what} is not a ${roles ? roles.join(' or ') : 'member'} of this shop`)
+}
+
+function procedureFor(ctx: ApplyContext, id: unknown): ProcedureDefinition {
+  const procedure = findProcedure(String(id))
+  if (!procedure) return reject('there is no such procedure')
+  if (!mayRun(procedure, ctx.role)) {
+    reject(ctx.role === 'player' && procedure.insideChassis
+      ? 'measurements inside the chassis are for qualified people: a player may run only the backstage check'
+      : 'your role may not run procedures', 'forbidden')
+  }
+  return procedure
+}
+
+const UNCHANGEABLE_RUN_FIELDS = ['procedureId', 'gateId', 'jobId', 'variant'] as const
+
+// The gate rule: a run exists only with its own safety check, acknowledged in full by the person running it.
+async function checkRun(ctx: ApplyContext, next: Record<string, unknown>, previous?: Row) {
+  const run = next as EntityFields<'procedureRuns'> & { id: string, createdBy?: string }
+  const before = previous as (Record<string, unknown> & Partial<EntityFields<'procedureRuns'>>) | undefined
+  const procedure = procedureFor(ctx, run.procedureId)
+  if (before) {
+    if (before.createdBy !== ctx.userId && ctx.role !== 'owner') reject('only the person running it (or an owner) may change a run', 'forbidden')
+    for (const f of UNCHANGEABLE_RUN_FIELDS) if (before[f] !== next[f]) reject(`a run's ${f} cannot change once it has started`)
+    if (before.status !== 'running' && run.status !== before.status) reject('a finished run cannot be reopened')
+  }
+  else {
+    if (run.status !== 'running') reject('a new run starts running')
+    if (!validVariant(procedure, run.variant)) reject(`"${run.variant}" is not a method of ${procedure.title}`)
+    if (run.jobId && ctx.role === 'player') reject('runs on a job are the shop\'s work', 'forbidden')
+    await mustExist(ctx, 'jobs', run.jobId, 'job')
+    const t = tables.procedureGates
+    const [gate] = await ctx.tx.select().from(t).where(and(eq(t.id, run.gateId), eq(t.shopId, ctx.shopId), isNull(t.deletedAt)))
+    if (!gate || gate.runId !== run.id || gate.procedureId !== run.procedureId || gate.createdBy !== ctx.userId || (gate.jobId ?? null) !== (run.jobId ?? null)) {
+      reject('a run needs its own acknowledged safety check, made by the person running it, before step 1')
+    }
+  }
+  if (run.status === 'done' && before?.status !== 'done') {
+    const e = evaluateRun(procedure, run.variant, { tubes: run.tubeCount, caps: run.capCount }, run.readings)
+    if (e.outOfRange.length) reject(`the run cannot be done while a reading is out of range (${e.outOfRange.map(o => o.step.key).join(', ')}): ${e.outOfRange[0]!.reason}`)
+    if (e.missing.length) reject(`the run cannot be done with steps still to do: ${e.missing.map(s => s.key).join(', ')}`)
+  }
 }
 
 export const ENTITY_POLICIES: Record<EntityTable, EntityPolicy> = {
@@ -93,5 +136,25 @@ export const ENTITY_POLICIES: Record<EntityTable, EntityPolicy> = {
       await mustExist(ctx, 'jobs', next.jobId, 'job')
       await mustBeMember(ctx, next.techId, 'the tech', ['owner', 'tech'])
     },
+  },
+  procedureGates: {
+    table: tables.procedureGates,
+    create: ['owner', 'tech', 'player'],
+    // Insert-only: an acknowledgement is a record of what was ticked, never rewritten.
+    update: [],
+    remove: [],
+    async check(ctx, next) {
+      const procedure = procedureFor(ctx, next.procedureId)
+      if (!gateComplete(procedure, next.items as string[])) reject(`every item of the ${procedure.title} safety check must be ticked, and only those`)
+      if (next.jobId && ctx.role === 'player') reject('runs on a job are the shop\'s work', 'forbidden')
+      await mustExist(ctx, 'jobs', next.jobId, 'job')
+    },
+  },
+  procedureRuns: {
+    table: tables.procedureRuns,
+    create: ['owner', 'tech', 'player'],
+    update: ['owner', 'tech', 'player'],
+    remove: ['owner'],
+    check: checkRun,
   },
 }

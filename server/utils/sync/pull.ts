@@ -48,7 +48,9 @@ async function readEntities(tx: Tx, a: Access, scope: Scope | null, table: Entit
     mine = table === 'customers' ? inIds(t.id, scope.customerIds)
       : table === 'amps' ? inIds(t.customerId, scope.customerIds)
         : table === 'jobs' ? inIds(t.id, scope.jobIds)
-          : inIds(t.jobId, scope.jobIds)
+          // A player's own backstage checks, and the runs on their jobs (the service record shows them).
+          : table === 'procedureGates' || table === 'procedureRuns' ? or(eq(t.createdBy, a.userId), inIds(t.jobId, scope.jobIds))
+            : inIds(t.jobId, scope.jobIds)
   }
   const rows = await tx.select().from(t)
     .where(and(eq(t.shopId, a.shopId), gt(t.version, from), lte(t.version, to), mine))

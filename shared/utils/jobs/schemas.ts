@@ -36,8 +36,8 @@ export const jobListQuery = z.object({
 export const searchQuery = z.object({ q, page, pageSize })
 
 /** Create: the sync create's fields; the id may be sent (client-made) or left to the server. */
-const createBody = <S extends z.ZodObject>(fields: S) => fields.partial().extend({ id: id.optional() })
-const patchBody = <S extends z.ZodObject>(fields: S) => fields.partial().refine(f => Object.keys(f).length > 0, { message: 'change at least one field' })
+export const createBody = <S extends z.ZodObject>(fields: S) => fields.partial().extend({ id: id.optional() })
+export const patchBody = <S extends z.ZodObject>(fields: S) => fields.partial().refine(f => Object.keys(f).length > 0, { message: 'change at least one field' })
 
 export const jobCreateBody = createBody(ENTITY_FIELDS.jobs)
 export const jobPatchBody = patchBody(ENTITY_FIELDS.jobs)

@@ -1,0 +1,9 @@
+import { gateCreateBody } from '#shared/utils/procedures/schemas'
+
+export default defineEventHandler(async (event) => {
+  const access = await requireActiveShopRole(event, ['owner', 'tech', 'player'])
+  const body = await validBody(event, gateCreateBody)
+  const gate = await createEntity(access, 'procedureGates', body)
+  setResponseStatus(event, 201)
+  return gate
+})

@@ -1,0 +1,11 @@
+import { idParams } from '#shared/utils/jobs/schemas'
+import { runPatchBody } from '#shared/utils/procedures/schemas'
+
+export default defineEventHandler(async (event) => {
+  const access = await requireActiveShopRole(event, ['owner', 'tech', 'player'])
+  const { id } = await validParams(event, idParams)
+  const fields = await validBody(event, runPatchBody)
+  await findRun(access, id)
+  await patchEntity(access, 'procedureRuns', id, fields)
+  return findRun(access, id)
+})

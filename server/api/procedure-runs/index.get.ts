@@ -1,0 +1,7 @@
+import { runListQuery } from '#shared/utils/procedures/schemas'
+
+export default defineEventHandler(async (event) => {
+  const access = await requireActiveShopRole(event)
+  const query = await validQuery(event, runListQuery)
+  return listRuns(access, query)
+})
