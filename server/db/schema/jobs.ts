@@ -2,7 +2,6 @@ import { bigint, boolean, double, index, int, json, mysqlEnum, mysqlTable, prima
 import { sql } from 'drizzle-orm'
 import { JOB_PRIORITIES, JOB_STATES } from '../../../shared/utils/jobs/states'
 import { stamp, synced, timestamps, uuid } from './columns'
-import type { FieldStamps } from './notebook'
 
 export const customers = mysqlTable('customers', {
   ...synced(),

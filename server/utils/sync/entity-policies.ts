@@ -1,11 +1,10 @@
 import { and, eq, isNull } from 'drizzle-orm'
 import type { MySqlTableWithColumns } from 'drizzle-orm/mysql-core'
 import { randomUUID } from 'node:crypto'
-import type { EntityTable } from '#shared/utils/sync/entities'
+import type { EntityFields, EntityTable } from '#shared/utils/sync/entities'
 import type { Role } from '#shared/utils/roles'
 import { canTransition, JOB_STATE_LABELS, type JobState } from '#shared/utils/jobs/states'
 import { evaluateRun, findProcedure, gateComplete, mayRun, validVariant, type ProcedureDefinition } from '#shared/utils/procedures/index'
-import type { EntityFields } from '#shared/utils/sync/entities'
 import { reject, type ApplyContext } from './context'
 
 type Row = Record<string, unknown> & { id: string, status?: JobState }
