@@ -29,7 +29,9 @@ function ensureChromium() {
   execSync('apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium', { stdio: 'inherit' })
 }
 
-const onlySuites = process.argv.slice(2)
+// Arguments: suite names (unit, nuxt, api, e2e) and/or test file paths, e.g. `api tests/api/procedures.test.ts`.
+const onlySuites = process.argv.slice(2).filter(a => !a.includes('/'))
+const onlyFiles = process.argv.slice(2).filter(a => a.includes('/'))
 const skipChecks = process.env.TW_SKIP_CHECKS === '1'
 const reportDir = mkdtempSync(join(tmpdir(), 'tubewright-report-'))
 let stack = null
@@ -43,7 +45,7 @@ try {
   stack = await startThrowawayStack({ log })
 
   const report = join(reportDir, 'vitest.json')
-  const projects = onlySuites.map(s => `--project ${s}`).join(' ')
+  const projects = [...onlySuites.map(s => `--project ${s}`), ...onlyFiles].join(' ')
   const r = await run(`npx vitest run ${projects} --reporter=default --reporter=json --outputFile.json=${report}`, {
     env: { ...process.env, ...stack.testEnv },
   })

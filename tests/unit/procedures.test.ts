@@ -108,6 +108,7 @@ describe('expandSteps', () => {
     expect(expandSteps(bias, '', counts).map(s => s.key)).toEqual(expandSteps(bias, 'sense-resistor', counts).map(s => s.key))
     expect(validVariant(bias, 'sense-resistor')).toBe(true)
     expect(validVariant(bias, 'shunt')).toBe(false)
+    expect(validVariant(bias, '')).toBe(true)
     expect(validVariant(findProcedure('backstage-check')!, '')).toBe(true)
     expect(validVariant(findProcedure('backstage-check')!, 'sense-resistor')).toBe(false)
   })

@@ -27,10 +27,10 @@ export function expandSteps(procedure: ProcedureDefinition, variant: string | un
   return out
 }
 
-/** Is the variant one this procedure offers (or none, for a procedure without variants)? */
+/** Is the variant one this procedure offers? '' means its first (or, without variants, none). */
 export function validVariant(procedure: ProcedureDefinition, variant: string): boolean {
-  if (!procedure.variants?.length) return variant === ''
-  return procedure.variants.some(v => v.id === variant)
+  if (variant === '') return true
+  return !!procedure.variants?.some(v => v.id === variant)
 }
 
 /** A gate is acknowledged when every one of its items was ticked (extra ids are not hazards of this procedure). */
