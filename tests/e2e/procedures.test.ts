@@ -118,6 +118,12 @@ describe('a guided procedure, on a phone', () => {
     await page.screenshot({ path: 'tests/artifacts/procedure-step-tool.png', fullPage: true })
     await next(page)
     await heading(page).filter({ hasText: 'tube 2 of 2' }).waitFor()
+
+    // Interrupted: the page is reloaded with no signal; the run resumes where it stopped.
+    await page.goto(`${BASE}/procedures`)
+    await hydrated(page)
+    await page.getByTestId('resume-run').click()
+    await heading(page).filter({ hasText: 'Measure the idle current: tube 2 of 2' }).waitFor()
     await idleReading(page, '30')
     await next(page)
 
