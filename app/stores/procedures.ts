@@ -83,7 +83,8 @@ export const useProceduresStore = defineStore('procedures', () => {
   async function stopAt(run: RunRow, stepKey: string, reading: StepReading, reason: string) {
     await change(run.id, {
       readings: { ...run.readings, [stepKey]: reading },
-      warnings: [...run.warnings, { step: stepKey, text: reason, ...(reading.value === undefined ? {} : { value: reading.value }), at: reading.at }],
+      // The record keeps the latest 200 warnings (its limit); a run that long has said enough.
+      warnings: [...run.warnings, { step: stepKey, text: reason, ...(reading.value === undefined ? {} : { value: reading.value }), at: reading.at }].slice(-200),
     })
   }
 
