@@ -103,6 +103,7 @@ describe('a guided procedure, on a phone', () => {
     await page.getByTestId('start-run').click()
 
     await heading(page).filter({ hasText: 'Connect the load' }).waitFor()
+    const runId = new URL(page.url()).pathname.split('/run/')[1]!
     await confirmAndGo(page)
     await heading(page).filter({ hasText: 'Clip the meter on' }).waitFor()
     await confirmAndGo(page)
@@ -122,7 +123,7 @@ describe('a guided procedure, on a phone', () => {
     // Interrupted: the page is reloaded with no signal; the run resumes where it stopped.
     await page.goto(`${BASE}/procedures`)
     await hydrated(page)
-    await page.getByTestId('resume-run').click()
+    await page.locator(`[data-testid="resume-run"][href$="/run/${runId}"]`).click()
     await heading(page).filter({ hasText: 'Measure the idle current: tube 2 of 2' }).waitFor()
     await idleReading(page, '30')
     await next(page)
