@@ -82,3 +82,24 @@ export const DEMO_LABOUR = [
 /** Dana's ready job carries a sent invoice (number 1). */
 export const DEMO_INVOICE = { id: idOf('006', 1), jobId: J[0]!, number: 1, createdBy: DESK! }
 export const demoEventId = (jobIndex: number, step: number) => idOf('007', jobIndex * 100 + step)
+
+/**
+ * Job 6's full service: the caps drained and verified, then the bias set on its 6L6GC pair.
+ * Invented demo readings (SI; idle dissipation as a fraction of the rating).
+ */
+export interface DemoRun {
+  id: string, gateId: string, jobId: string, procedureId: string, variant: string, tubeCount: number, capCount: number,
+  /** Hours after the job was checked in. */
+  hoursIn: number
+  values: Record<string, number>
+}
+export const DEMO_RUNS: DemoRun[] = [
+  {
+    id: idOf('008', 1), gateId: idOf('009', 1), jobId: J[5]!, procedureId: 'drain-and-verify-caps', variant: '', tubeCount: 2, capCount: 4, hoursIn: 4,
+    values: { 'drain-time': 48.3, 'verify:1': 2.1, 'verify:2': 1.8, 'verify:3': 3.0, 'verify:4': 2.4, 'recheck': 4.2 },
+  },
+  {
+    id: idOf('008', 2), gateId: idOf('009', 2), jobId: J[5]!, procedureId: 'set-fixed-bias', variant: 'sense-resistor', tubeCount: 2, capCount: 3, hoursIn: 9,
+    values: { 'measure-initial:1': 0.43, 'measure-initial:2': 0.45, 'measure-final:1': 0.62, 'measure-final:2': 0.64 },
+  },
+]

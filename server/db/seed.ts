@@ -7,7 +7,8 @@ import { eq, inArray, sql } from 'drizzle-orm'
 import type { MySqlTransaction } from 'drizzle-orm/mysql-core'
 import * as schema from './schema/index'
 import { invoiceTotals, labourTotalCents, partTotalCents } from '../../shared/utils/jobs/money'
-import { DEMO_AMPS, DEMO_CUSTOMERS, DEMO_INVOICE, DEMO_JOBS, DEMO_LABOUR, DEMO_PARTS, DEMO_SEED_CLIENT, DEMO_SETTINGS, DEMO_SHOP, DEMO_USERS, demoEventId } from './demo'
+import { expandSteps, findProcedure } from '../../shared/utils/procedures/index'
+import { DEMO_AMPS, DEMO_CUSTOMERS, DEMO_INVOICE, DEMO_JOBS, DEMO_LABOUR, DEMO_PARTS, DEMO_RUNS, DEMO_SEED_CLIENT, DEMO_SETTINGS, DEMO_SHOP, DEMO_USERS, demoEventId } from './demo'
 
 const url = process.env.NUXT_DATABASE_URL
 if (!url) {
@@ -23,6 +24,7 @@ type Tx = MySqlTransaction<any, any, typeof schema, any>
 const SHOP = DEMO_SHOP.id
 const OWNER = DEMO_USERS[0]!.id
 const DESK = DEMO_USERS[2]!.id
+const TECH = DEMO_USERS[1]!.id
 const HOUR = 3_600_000
 
 /**
@@ -75,10 +77,24 @@ async function seedJobs(tx: Tx) {
     }
   }
   for (const { id, ...f } of await missing(schema.jobParts, DEMO_PARTS)) {
-    await tx.insert(schema.jobParts).values({ id, ...f, ...synced(f, DEMO_USERS[1]!.id, new Date(jobAt.get(f.jobId)!.getTime() + 6 * HOUR)) })
+    await tx.insert(schema.jobParts).values({ id, ...f, ...synced(f, TECH, new Date(jobAt.get(f.jobId)!.getTime() + 6 * HOUR)) })
   }
   for (const { id, ...f } of await missing(schema.jobLabour, DEMO_LABOUR)) {
-    await tx.insert(schema.jobLabour).values({ id, ...f, ...synced(f, DEMO_USERS[1]!.id, new Date(jobAt.get(f.jobId)!.getTime() + 6 * HOUR)) })
+    await tx.insert(schema.jobLabour).values({ id, ...f, ...synced(f, TECH, new Date(jobAt.get(f.jobId)!.getTime() + 6 * HOUR)) })
+  }
+  for (const r of await missing(schema.procedureRuns, DEMO_RUNS)) {
+    const procedure = findProcedure(r.procedureId)!
+    const at = new Date(jobAt.get(r.jobId)!.getTime() + r.hoursIn * HOUR)
+    const minute = (n: number) => new Date(at.getTime() + n * 60_000).toISOString()
+    const gate = { runId: r.id, procedureId: r.procedureId, jobId: r.jobId, items: procedure.gate.map(g => g.id), acknowledgedAt: at.toISOString() }
+    await tx.insert(schema.procedureGates).ignore().values({ id: r.gateId, ...gate, ...synced(gate, TECH, at) })
+    const steps = expandSteps(procedure, r.variant, { tubes: r.tubeCount, caps: r.capCount })
+    const readings = Object.fromEntries(steps.map((s, i) => [s.key, { ...(s.key in r.values ? { value: r.values[s.key] } : {}), at: minute(3 * (i + 1)) }]))
+    const run = {
+      procedureId: r.procedureId, gateId: r.gateId, variant: r.variant, jobId: r.jobId, tubeCount: r.tubeCount, capCount: r.capCount,
+      status: 'done' as const, stepIndex: steps.length, readings, warnings: [], endedAt: minute(3 * steps.length + 1), endReason: '',
+    }
+    await tx.insert(schema.procedureRuns).values({ id: r.id, ...run, ...synced(run, TECH, at) })
   }
   const [invoice] = await tx.select({ id: schema.invoices.id }).from(schema.invoices).where(eq(schema.invoices.id, DEMO_INVOICE.id))
   if (!invoice) {
