@@ -1,19 +1,9 @@
 import { describe, expect, it } from 'vitest'
-import { flushPromises } from '@vue/test-utils'
 import { computeTool, ENGINE_VERSION } from '#shared/utils/bench'
-import { fakeSyncServer, signInLocally, SHOP_ID } from './helpers/device'
+import { fakeSyncServer, SHOP_ID, signInLocally, until } from './helpers/device'
 import { useMeasurementsStore } from '~/stores/measurements'
 import { useSyncStore } from '~/stores/sync'
 import { summarize } from '~/utils/notebook/measurement-summary'
-
-async function until(check: () => boolean, what: string) {
-  for (let i = 0; i < 200; i++) {
-    await flushPromises()
-    if (check()) return
-    await new Promise(r => setTimeout(r, 10))
-  }
-  throw new Error(`timed out waiting for ${what}`)
-}
 
 // One tube of a fixed-bias pair, plate current read directly.
 const inputs = { method: 'direct', mode: 'fixed', plateVolts: 400, amps: 0.03, maxPlateWatts: 30 }

@@ -1,17 +1,7 @@
 import { describe, expect, it } from 'vitest'
-import { flushPromises } from '@vue/test-utils'
-import { fakeSyncServer, signInLocally, SHOP_ID } from './helpers/device'
+import { fakeSyncServer, SHOP_ID, signInLocally, until } from './helpers/device'
 import { useNotesStore } from '~/stores/notes'
 import { useSyncStore } from '~/stores/sync'
-
-async function until(check: () => boolean, what: string) {
-  for (let i = 0; i < 200; i++) {
-    await flushPromises()
-    if (check()) return
-    await new Promise(r => setTimeout(r, 10))
-  }
-  throw new Error(`timed out waiting for ${what}`)
-}
 
 const outbox = () => useSyncStore().db!.outbox.where('shopId').equals(SHOP_ID).sortBy('id')
 

@@ -1,18 +1,8 @@
 import { describe, expect, it } from 'vitest'
-import { flushPromises } from '@vue/test-utils'
 import { findProcedure } from '#shared/utils/procedures/index'
-import { fakeSyncServer, signInLocally, SHOP_ID } from './helpers/device'
+import { fakeSyncServer, SHOP_ID, signInLocally, until } from './helpers/device'
 import { useProceduresStore } from '~/stores/procedures'
 import { useSyncStore } from '~/stores/sync'
-
-async function until(check: () => boolean, what: string) {
-  for (let i = 0; i < 200; i++) {
-    await flushPromises()
-    if (check()) return
-    await new Promise(r => setTimeout(r, 10))
-  }
-  throw new Error(`timed out waiting for ${what}`)
-}
 
 const caps = findProcedure('drain-and-verify-caps')!
 const allItems = caps.gate.map(g => g.id)

@@ -1,19 +1,9 @@
 import { describe, expect, it } from 'vitest'
-import { flushPromises } from '@vue/test-utils'
 import { mountSuspended } from '@nuxt/test-utils/runtime'
-import { fakeSyncServer, signInLocally, SHOP_ID } from './helpers/device'
+import { fakeSyncServer, SHOP_ID, signInLocally, until } from './helpers/device'
 import AppSyncChip from '~/components/app/AppSyncChip.vue'
 import { useSyncStore } from '~/stores/sync'
 import { useNotesStore } from '~/stores/notes'
-
-async function until(check: () => boolean, what: string) {
-  for (let i = 0; i < 200; i++) {
-    await flushPromises()
-    if (check()) return
-    await new Promise(r => setTimeout(r, 10))
-  }
-  throw new Error(`timed out waiting for ${what}`)
-}
 
 describe('AppSyncChip over the real sync store', () => {
   it('walks through on this device, sending, synced and needs a decision with the right words and shapes', async () => {

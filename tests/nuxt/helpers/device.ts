@@ -4,6 +4,7 @@ import Dexie from 'dexie'
 import { registerEndpoint } from '@nuxt/test-utils/runtime'
 import { readBody, setResponseStatus } from 'h3'
 import type { PullReply, PushBody, RowChange } from '#shared/utils/sync/protocol'
+import { flushPromises } from '@vue/test-utils'
 import { useSessionStore } from '~/stores/session'
 
 // Dexie read its dependencies when the app loaded, before fake-indexeddb existed.
@@ -66,4 +67,14 @@ export function fakeSyncServer() {
     },
   })
   return server
+}
+
+/** Waits (flushing Vue and timers) until `check` holds, or fails naming `what`. */
+export async function until(check: () => boolean, what: string, tries = 200) {
+  for (let i = 0; i < tries; i++) {
+    await flushPromises()
+    if (check()) return
+    await new Promise(r => setTimeout(r, 10))
+  }
+  throw new Error(`timed out waiting for ${what}`)
 }
