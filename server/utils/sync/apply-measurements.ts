@@ -2,6 +2,7 @@ import { and, eq } from 'drizzle-orm'
 import { parseToolInputs, verifySavedResult } from '#shared/utils/bench'
 import type { MutationArgs } from '#shared/utils/sync/protocol'
 import { reject, type ApplyContext, type ApplyOutcome } from './context'
+import { mustExist } from './entity-policies'
 
 export const MEASURING_ROLES = ['owner', 'tech', 'player'] as const
 
@@ -17,6 +18,9 @@ export async function measurementCreate(ctx: ApplyContext, a: MutationArgs<'meas
   const inputs = checkSavedResult(a)
   const [existing] = await ctx.tx.select({ id: tables.measurements.id }).from(tables.measurements).where(eq(tables.measurements.id, a.id))
   if (existing) reject('a record with this id already exists')
+  await mustExist(ctx, 'jobs', a.jobId, 'job')
+  // A rig is a player's amp record.
+  await mustExist(ctx, 'amps', a.rigId, 'rig')
   await ctx.tx.insert(tables.measurements).values({
     id: a.id,
     shopId: ctx.shopId,

@@ -2,6 +2,7 @@ import { and, eq } from 'drizzle-orm'
 import type { MutationArgs } from '#shared/utils/sync/protocol'
 import { isStaff, reject, type ApplyContext, type ApplyOutcome } from './context'
 import { changedByOthers, recordConflict, stampFor } from './conflicts'
+import { mustExist } from './entity-policies'
 
 const NOTE_FIELDS = ['body', 'title', 'visibility'] as const
 
@@ -17,6 +18,7 @@ export async function noteCreate(ctx: ApplyContext, a: MutationArgs<'note.create
   const [existing] = await ctx.tx.select({ id: tables.notes.id, shopId: tables.notes.shopId, authorId: tables.notes.authorId })
     .from(tables.notes).where(eq(tables.notes.id, a.id))
   if (existing) reject('a record with this id already exists')
+  await mustExist(ctx, 'jobs', a.jobId, 'job')
   const stamp = stampFor(ctx)
   await ctx.tx.insert(tables.notes).values({
     id: a.id,

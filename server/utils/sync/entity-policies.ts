@@ -21,11 +21,17 @@ export interface EntityPolicy {
   after?: (ctx: ApplyContext, next: Record<string, unknown>, before?: Row) => Promise<void>
 }
 
-async function mustExist(ctx: ApplyContext, table: EntityTable, id: unknown, what: string) {
-  if (typeof id !== 'string') return
+/**
+ * Refuse a reference to a record that is not a live record of this shop (checked inside the
+ * mutation's transaction). `mayBeNew`: the record may not exist yet (a gate names the run it opens),
+ * but an id already used by another shop or by a deleted record is still refused.
+ */
+export async function mustExist(ctx: ApplyContext, table: EntityTable, id: unknown, what: string, opts: { mayBeNew?: boolean } = {}) {
+  if (id === null || id === undefined) return
+  if (typeof id !== 'string') return reject(`${what} not found in this shop`)
   const t = ENTITY_POLICIES[table].table
-  const [row] = await ctx.tx.select({ id: t.id }).from(t).where(and(eq(t.id, id), eq(t.shopId, ctx.shopId), isNull(t.deletedAt)))
-  if (!row) reject(`${what} not found in this shop`)
+  const [row] = await ctx.tx.select({ shopId: t.shopId, deletedAt: t.deletedAt }).from(t).where(eq(t.id, id))
+  if (row ? row.shopId !== ctx.shopId || row.deletedAt : !opts.mayBeNew) reject(`${what} not found in this shop`)
 }
 
 async function mustBeMember(ctx: ApplyContext, userId: unknown, what: string, roles?: readonly Role[]) {
@@ -147,6 +153,7 @@ export const ENTITY_POLICIES: Record<EntityTable, EntityPolicy> = {
       if (!gateComplete(procedure, next.items as string[])) reject(`every item of the ${procedure.title} safety check must be ticked, and only those`)
       if (next.jobId && ctx.role === 'player') reject('runs on a job are the shop\'s work', 'forbidden')
       await mustExist(ctx, 'jobs', next.jobId, 'job')
+      await mustExist(ctx, 'procedureRuns', next.runId, 'run', { mayBeNew: true })
     },
   },
   procedureRuns: {
