@@ -1,5 +1,6 @@
 import { defineStore } from 'pinia'
 import type { MutationArgs, MutationName } from '#shared/utils/sync/protocol'
+import { ENTITY_PREFIX, ENTITY_TABLES, type EntityTable } from '#shared/utils/sync/entities'
 import { LocalDb, localDbName, type ConflictRow, type MetaRow, type OutboxRow, type RejectionRow } from '~/utils/sync/local-db'
 import { SyncEngine, SyncHttpError, type Transport } from '~/utils/sync/engine'
 import { syncStateOf, type SyncState } from '~/utils/sync/status'
@@ -214,9 +215,14 @@ export const useSyncStore = defineStore('sync', () => {
     const c = await db.value?.conflicts.get(id)
     if (!c) throw new Error('That conflict is not on this device.')
     await mutate('conflict.resolve', { id, value: choice.value })
-    if (choice.thenDelete && c.tableName === 'notes') {
+    if (!choice.thenDelete) return
+    if (c.tableName === 'notes') {
       const note = await db.value?.notes.get(c.rowId)
       await mutate('note.delete', { id: c.rowId }, note?.version)
+    }
+    else if ((ENTITY_TABLES as readonly string[]).includes(c.tableName)) {
+      const row = await db.value?.table(c.tableName).get(c.rowId) as { version?: number } | undefined
+      await mutate(`${ENTITY_PREFIX[c.tableName as EntityTable]}.delete` as MutationName, { id: c.rowId } as never, row?.version)
     }
   }
 

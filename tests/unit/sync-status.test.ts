@@ -75,7 +75,7 @@ describe('conflict view', () => {
   })
   it('keeps a deletion by resolving with the stored text and deleting again', () => {
     const note = { body: 'stored text', title: '' } as NoteRow
-    const v = conflictView(c({ serverValue: null, clientValue: 'edited after' }), note)
+    const v = conflictView(c({ serverValue: null, clientValue: 'edited after', note: 'edited after it was deleted' }), { record: note as unknown as Record<string, unknown> })
     expect(v.sides[0]!.choice).toEqual({ value: 'stored text', thenDelete: true })
     expect(v.sides[1]!.choice).toEqual({ value: 'edited after' })
   })
