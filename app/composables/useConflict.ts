@@ -20,7 +20,7 @@ export function useConflict(id: Ref<string>) {
   const sync = useSyncStore()
   const conflict = useLiveQuery(() => sync.db?.conflicts.get(id.value), () => [sync.db, id.value], undefined as ConflictRow | undefined)
   const subject = useLiveQuery(
-    async () => (sync.db && conflict.value ? conflictSubject(sync.db, conflict.value) : { related: {} }),
+    async (): Promise<ConflictSubject> => (sync.db && conflict.value ? conflictSubject(sync.db, conflict.value) : { related: {} }),
     () => [sync.db, conflict.value?.rowId],
     { related: {} } as ConflictSubject,
   )

@@ -76,7 +76,7 @@ export function fieldInfo(table: string, field: string): FieldInfo {
   return FIELDS[table]?.[field] ?? { label: field.replace(/([A-Z])/g, ' $1').toLowerCase(), kind: 'other' }
 }
 
-export interface ValueNames { currency?: string, person?: (id: string) => string | undefined, record?: (id: string) => string | undefined }
+export interface ValueNames { currency?: string, person?: (id: string) => string | undefined, recordName?: (id: string) => string | undefined }
 
 /** A value as the rest of the app shows it. */
 export function formatFieldValue(table: string, field: string, value: unknown, names: ValueNames = {}): string {
@@ -91,7 +91,7 @@ export function formatFieldValue(table: string, field: string, value: unknown, n
       return Number.isNaN(d.getTime()) ? String(value) : d.toLocaleDateString('en-GB', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric' })
     }
     case 'person': return names.person?.(String(value)) ?? 'another member'
-    case 'record': return names.record?.(String(value)) ?? 'another record'
+    case 'record': return names.recordName?.(String(value)) ?? 'another record'
     case 'text': case 'longtext': case 'number': return String(value)
     default: return typeof value === 'string' ? value : JSON.stringify(value)
   }
