@@ -1,6 +1,7 @@
 import { computeTool, parseToolInputs } from '#shared/utils/bench/index'
 import type { BenchToolId, BenchToolInputs, BenchToolOutputs } from '#shared/utils/bench/index'
 import { readQuantity, type Dimension } from '#shared/utils/units'
+import { engineMessageInWords } from '~/utils/engine-words'
 
 /** One input as the form holds it: typed text and its unit, or a value picked elsewhere (a tube). */
 export interface BenchField {
@@ -81,7 +82,7 @@ export function useBenchCompute<T extends BenchToolId>(
     }
     catch (e) {
       if (!(e instanceof RangeError)) throw e
-      const message = humanise(e.message, all)
+      const message = engineMessageInWords(humanise(e.message, all))
       const key = fieldNamed(e.message, Object.keys(all))
       if (key) return { ...empty, errors: { [key]: message } }
       return { ...empty, error: message }

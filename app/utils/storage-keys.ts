@@ -8,6 +8,8 @@ export const STORAGE_KEYS = {
   benchTool: (tool: BenchToolId) => `tubewright.bench.${tool}`,
   /** The same, for the tool as shown inside a procedure step. */
   procedureTool: (tool: BenchToolId) => `tubewright.procedure-tool.${tool}`,
+  /** When a procedure step's wait was started, so a reload resumes the wait instead of restarting it. */
+  holdStart: (runId: string, stepKey: string) => `tubewright.hold.${runId}.${stepKey}`,
   /** The shop's own tube-library entries, cached for use with no signal. */
   shopTubes: (shopId: string) => `tubewright.tubes.${shopId}`,
   /** The shop's members (names for ids, techs to assign), cached for use with no signal. */

@@ -176,9 +176,13 @@ describe('jobs over REST', () => {
       await expectStatus(c, 'GET', `/api/customers/${customer.id}`, 200)
       await expectStatus(c, 'GET', `/api/amps/${amp.id}`, 200)
     }
-    for (const p of ['/api/customers', `/api/customers/${customer.id}`, '/api/amps', `/api/amps/${amp.id}`, '/api/shop/settings', '/api/mail']) {
+    for (const p of ['/api/customers', `/api/customers/${customer.id}`, '/api/amps', `/api/amps/${amp.id}`, '/api/mail']) {
       await expectStatus(dana, 'GET', p, 403)
     }
+    // A player reads the billing settings their totals are worked out with, not the shop's internal switches.
+    const billing = (await dana.get('/api/shop/settings')).body
+    expect(billing).toHaveProperty('taxRateBasisPoints')
+    expect(billing).not.toHaveProperty('readyEmail')
     await expectStatus(owner, 'POST', '/api/customers', 201, { name: `Walk-in ${tag()}` })
     for (const c of [tech, dana]) await expectStatus(c, 'POST', '/api/customers', 403, { name: 'Nope' })
     await expectStatus(desk, 'PATCH', `/api/customers/${customer.id}`, 200, { phone: '555-0100' })

@@ -112,7 +112,18 @@ describe('a job from check-in to hand-back, on phones', () => {
     await hydrated(player)
     await player.locator('[data-kind="invoice"][data-state="sent"]').waitFor({ timeout: 30_000 })
     await player.getByTestId('pay').click()
+    // Paying asks first, with the amount and what it is for; nothing is paid until confirmed.
+    const confirm = player.getByTestId('pay-confirm')
+    await confirm.waitFor()
+    const total = (await player.locator('[data-kind="invoice"][data-state="sent"] .num.font-semibold').first().textContent())!.trim()
+    expect(await confirm.textContent()).toContain(`Pay ${total} for invoice`)
+    await player.getByRole('button', { name: 'Not now' }).click()
+    await player.getByTestId('pay').waitFor()
+    expect(await player.locator('[data-kind="invoice"][data-state="sent"]').count()).toBe(1)
+    await player.getByTestId('pay').click()
+    await player.getByTestId('pay-confirm-button').click()
     await player.locator('[data-kind="invoice"][data-state="paid"]').waitFor({ timeout: 60_000 })
+    expect(await player.getByTestId('pay-receipt').textContent()).toContain(`Receipt: paid ${total}`)
 
     // The service record prints.
     await player.goto(`${BASE}/jobs/${jobId}/record`)

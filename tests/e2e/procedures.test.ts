@@ -178,6 +178,9 @@ describe('a guided procedure, on a phone', () => {
     const record = page.getByTestId('record-procedures')
     await record.waitFor()
     expect(await record.textContent()).toMatch(/Set fixed bias[\s\S]*acknowledged by Owen Pryde/)
+    // The percentages come with the current and voltage behind them, and dates that stay true on paper.
+    expect(await record.getByTestId('run-reading-behind').first().textContent()).toMatch(/\d+(\.\d+)? mA at \d+(\.\d+)? V/)
+    expect(await record.textContent()).toMatch(/\d{1,2} [A-Z][a-z]{2} \d{4} \d{2}:\d{2}/)
     await page.screenshot({ path: 'tests/artifacts/procedure-record.png', fullPage: true })
 
     expect(errors).toEqual([])

@@ -130,3 +130,28 @@ describe('Idle dissipation form', () => {
     expect((queued[0]!.args.outputs as { watts: number }).watts).toBeCloseTo(9.975, 3)
   })
 })
+
+describe('Idle dissipation: a reading far beyond the tube', () => {
+  it('offers "did you mean 40 mV?" for 40 typed with the unit on V, and applies it', async () => {
+    const w = await mountSuspended(BenchIdleDissipation)
+    await w.find('#idle-tube').setValue('6v6gta')
+    await choose(w, 'Fixed bias')
+    await type(w, '#idle-plate-volts', '400')
+    await choose(w, 'Sense resistor')
+    await type(w, '#idle-sense-volts', '40')
+    await w.find('select[aria-label="Sense voltage: unit"]').setValue('V')
+    // Source: Ohm's law, worked by hand: 40 V across 1 Ω is 40 A of cathode current, thousands of % of any tube;
+    // 40 mV is 40 mA, less a 5 % screen share (common practice, no source) 38 mA: 400 V x 38 mA = 15.2 W, 109 % of 14 W.
+    const hint = testid(w, 'unit-slip')
+    expect(hint.exists()).toBe(true)
+    expect(hint.text()).toContain('Did you mean 40 mV?')
+    await hint.find('button').trigger('click')
+    expect(testid(w, 'unit-slip').exists()).toBe(false)
+    expect(testid(w, 'plate-current').text()).toBe('38.0 mA')
+  })
+
+  it('shows no hint for a plausible reading', async () => {
+    const w = await sixV6Pair()
+    expect(testid(w, 'unit-slip').exists()).toBe(false)
+  })
+})

@@ -15,12 +15,4 @@ export function validateCreate<T extends EntityTable>(table: T, fields: Record<s
   return { ok: false, errors }
 }
 
-/** "12.50" → 1250; blank or not a money amount → null. */
-export function parseMoney(text: string): number | null {
-  const t = text.trim().replace(/^[$€£]/, '').replace(/,/g, '')
-  if (!/^\d+(\.\d{1,2})?$/.test(t)) return null
-  const [whole, frac = ''] = t.split('.')
-  return Number(whole) * 100 + Number(frac.padEnd(2, '0'))
-}
-
 export const centsToText = (cents: number) => (cents / 100).toFixed(2)

@@ -1,6 +1,7 @@
 import { and, asc, desc, eq, isNull, ne } from 'drizzle-orm'
 import type { AnyMySqlColumn } from 'drizzle-orm/mysql-core'
 import { idParams } from '#shared/utils/jobs/schemas'
+import { invoiceTotals } from '#shared/utils/jobs/money'
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event)
@@ -10,7 +11,7 @@ export default defineEventHandler(async (event) => {
   if (player && !(await isJobOfPlayer(db, access.shopId, id, access.userId))) throw createError({ statusCode: 404, message: 'Job not found.' })
   const job = await findShopJob(db, access.shopId, id)
   const inJob = (t: { shopId: AnyMySqlColumn, jobId: AnyMySqlColumn }) => and(eq(t.shopId, access.shopId), eq(t.jobId, id))
-  const [[customer], [amp], parts, labour, events, notes, measurements, invoices] = await Promise.all([
+  const [[customer], [amp], parts, labour, events, notes, measurements, invoices, settings] = await Promise.all([
     db.select().from(tables.customers).where(and(eq(tables.customers.id, job.customerId), eq(tables.customers.shopId, access.shopId))),
     db.select().from(tables.amps).where(and(eq(tables.amps.id, job.ampId), eq(tables.amps.shopId, access.shopId))),
     db.select().from(tables.jobParts).where(and(inJob(tables.jobParts), isNull(tables.jobParts.deletedAt))).orderBy(asc(tables.jobParts.createdAt)),
@@ -20,6 +21,7 @@ export default defineEventHandler(async (event) => {
     db.select().from(tables.notes).where(and(inJob(tables.notes), isNull(tables.notes.deletedAt), player ? eq(tables.notes.visibility, 'customer') : undefined)).orderBy(asc(tables.notes.createdAt)),
     db.select().from(tables.measurements).where(and(inJob(tables.measurements), isNull(tables.measurements.deletedAt))).orderBy(asc(tables.measurements.createdAt)),
     db.select().from(tables.invoices).where(and(inJob(tables.invoices), player ? ne(tables.invoices.state, 'draft') : undefined)).orderBy(desc(tables.invoices.createdAt)),
+    shopSettingsOf(db, access.shopId),
   ])
   return {
     ...publicRow(job),
@@ -31,5 +33,7 @@ export default defineEventHandler(async (event) => {
     notes: notes.map(publicRow),
     measurements,
     invoices,
+    // The same rule and settings an invoice made now would use, for every role that sees the job.
+    totals: { ...invoiceTotals(parts, labour, settings.taxRateBasisPoints), taxRateBasisPoints: settings.taxRateBasisPoints, currency: settings.currency },
   }
 })
