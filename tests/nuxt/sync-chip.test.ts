@@ -56,5 +56,15 @@ describe('AppSyncChip over the real sync store', () => {
     expect(state().attributes('href')).toBe('/sync')
     expect(sync.conflictRowIds.has(id)).toBe(true)
     expect(sync.shopId).toBe(SHOP_ID)
+
+    // The connection drops with the decision still open: the chip says offline and counts what waits.
+    server.mode = 'down'
+    await notes.create({ title: 'Backstage', body: 'Spare pair checked.' })
+    await until(() => sync.pending === 1, 'the new note waiting')
+    sync.offline = true
+    await until(() => state().text().includes('offline'), 'offline')
+    expect(state().text()).toContain('1')
+    expect(state().attributes('data-state')).toBe('conflict')
+    expect(state().attributes('aria-label')).toBe('Sync: needs a decision, offline, 1 change waiting, 1 to decide')
   })
 })
