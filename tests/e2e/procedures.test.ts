@@ -26,13 +26,15 @@ async function newJob(page: Page): Promise<string> {
     return (await r.json()) as { id: string }
   }
   const customer = await post('/api/customers', { name: 'Sam Okafor' })
-  const amp = await post('/api/amps', { customerId: customer.id, description: 'two-6V6 combo, fixed bias', serial: `LAW-P${Date.now().toString().slice(-5)}`, powerTubeCount: 2, biasMode: 'fixed' })
+  const amp = await post('/api/amps', { customerId: customer.id, description: 'two-6V6 combo, fixed bias', serial: `LAW-P${Date.now().toString().slice(-5)}`, tubeComplement: '2 x 12AX7, 2 x 6V6GTA', powerTubeCount: 2, biasMode: 'fixed' })
   const job = await post('/api/jobs', { customerId: customer.id, ampId: amp.id, complaint: 'Needs new power tubes and the bias set' })
   return job.id
 }
 
 /** Fill the inline Idle dissipation tool: a 6V6GTA (14 W) at 400 V, the sense voltage in mV across 1 Ω. */
 async function idleReading(page: Page, senseMillivolts: string) {
+  // The tool starts with the job's amp's power tube, from its tube complement.
+  expect(await page.inputValue('#idle-tube')).toBe('6v6gta')
   await page.selectOption('#idle-tube', '6v6gta')
   await page.fill('#idle-plate-volts', '400')
   await page.fill('#idle-sense-ohms', '1')
