@@ -62,7 +62,8 @@ describe('AppSyncChip over the real sync store', () => {
     await notes.create({ title: 'Backstage', body: 'Spare pair checked.' })
     await until(() => sync.pending === 1, 'the new note waiting')
     sync.offline = true
-    await until(() => state().text().includes('offline'), 'offline')
+    await until(() => state().find('[data-testid="sync-chip-offline"]').exists(), 'offline')
+    expect(state().text()).toContain('needs a decision')
     expect(state().text()).toContain('1')
     expect(state().attributes('data-state')).toBe('conflict')
     expect(state().attributes('aria-label')).toBe('Sync: needs a decision, offline, 1 change waiting, 1 to decide')
