@@ -15,7 +15,10 @@ export const DEMO_USERS: { id: string, email: string, name: string, role: Role }
 const idOf = (group: string, n: number) => `6f1c2a10-0000-4000-8${group}-${String(n).padStart(12, '0')}`
 const [, TECH, DESK] = DEMO_USERS.map(u => u.id)
 export const DEMO_SEED_CLIENT = 'seed'
-export const DEMO_SETTINGS = { labourRateCents: 9000, taxRateBasisPoints: 825, currency: 'usd', readyEmail: true }
+export const DEMO_SETTINGS = {
+  address: 'Unit 3, 18 Kiln Row', phone: '555-0100', email: 'desk@larkspur.example',
+  labourRateCents: 9000, taxRateBasisPoints: 825, currency: 'usd', readyEmail: true, invoiceEmail: true, paymentEmail: true,
+}
 
 export const DEMO_CUSTOMERS = [
   { id: idOf('001', 1), name: 'Dana Whitlow', email: 'dana@players.example', phone: '555-0141', notes: '', playerUserId: DEMO_USERS[3]!.id },

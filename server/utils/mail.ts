@@ -21,7 +21,7 @@ function useTransport() {
 }
 
 /** Sends one message and records it in sent_mail (the owner's Outbox), delivered or not. */
-export async function sendMail(message: { to: string, subject: string, text: string, shopId?: string | null }) {
+export async function sendMail(message: { to: string, subject: string, text: string, replyTo?: string, shopId?: string | null }) {
   const config = useRuntimeConfig()
   const { shopId = null, ...mail } = message
   let delivered = false

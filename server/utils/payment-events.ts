@@ -26,7 +26,7 @@ export async function handlePaymentEvent(event: Stripe.Event): Promise<'handled'
     await tx.update(tables.payments).set({ status: 'succeeded' }).where(eq(tables.payments.id, payment.id))
     const invoice = await findInvoice(tx, payment.shopId, payment.invoiceId, { lock: true })
     if (invoice.state === 'paid') return 'handled' as const
-    await tx.update(tables.invoices).set({ state: 'paid', paidAt: new Date(), version })
+    await tx.update(tables.invoices).set({ state: 'paid', paidAt: new Date(), paidWith: 'online', version })
       .where(and(eq(tables.invoices.id, invoice.id), eq(tables.invoices.shopId, payment.shopId)))
     await audit(tx, { shopId: payment.shopId, action: 'invoice.paid', detail: { invoiceId: invoice.id, paymentId: payment.id, eventId: event.id } })
     paid = invoice

@@ -151,7 +151,15 @@ describe('jobs over REST', () => {
     expect((await sam.get(`/api/jobs/${ready.id}`)).status).toBe(404)
     expect((await sam.get('/api/jobs?q=LAW-0412')).body.total).toBe(0)
     const settings = await desk.get('/api/shop/settings')
-    expect(settings.body).toEqual({ labourRateCents: 9000, taxRateBasisPoints: 825, currency: 'usd', readyEmail: true })
+    expect(settings.body).toEqual({
+      name: 'Larkspur Amp Works', address: 'Unit 3, 18 Kiln Row', phone: '555-0100', email: 'desk@larkspur.example',
+      labourRateCents: 9000, taxRateBasisPoints: 825, currency: 'usd', readyEmail: true, invoiceEmail: true, paymentEmail: true,
+    })
+    // A player reads the shop's contact and billing rules, not its e-mail switches.
+    const forDana = (await dana.get('/api/shop/settings')).body
+    expect(forDana).toMatchObject({ name: 'Larkspur Amp Works', taxRateBasisPoints: 825, currency: 'usd' })
+    expect(Object.keys(forDana)).not.toContain('readyEmail')
+    expect(Object.keys(forDana)).not.toContain('invoiceEmail')
   })
 
   it('lets each role do only its part (allowed 2xx, others 403)', async () => {
@@ -246,7 +254,7 @@ describe('jobs over REST', () => {
     const o = other.c
     const r = await o.patch('/api/shop/settings', { labourRateCents: 8500, taxRateBasisPoints: 700, currency: 'EUR', readyEmail: false })
     expect(r.status).toBe(200)
-    expect(r.body).toEqual({ labourRateCents: 8500, taxRateBasisPoints: 700, currency: 'eur', readyEmail: false })
+    expect(r.body).toMatchObject({ labourRateCents: 8500, taxRateBasisPoints: 700, currency: 'eur', readyEmail: false })
     expect((await o.patch('/api/shop/settings', { readyEmail: true })).body).toMatchObject({ labourRateCents: 8500, readyEmail: true })
   })
 })

@@ -121,6 +121,8 @@ export interface InvoiceRow extends ViewBase {
   currency: string
   issuedAt: string | null
   paidAt: string | null
+  /** Absent on rows pulled before it existed. */
+  paidWith?: 'online' | 'cash' | 'card' | null
 }
 
 export interface RejectionRow {

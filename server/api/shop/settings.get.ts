@@ -1,8 +1,9 @@
-// Staff read every setting; a player reads what their job's totals are worked out with (tax, rate, currency).
+// Staff read every setting; a player reads the shop's contact and what their job's totals are worked out with.
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event)
   const settings = await shopSettingsOf(useDb(), access.shopId)
   if (access.role !== 'player') return settings
-  const { readyEmail: _internal, ...billing } = settings
-  return billing
+  const shown: Partial<ShopSettings> = { ...settings }
+  for (const key of INTERNAL_SETTINGS) delete shown[key]
+  return shown
 })

@@ -1,13 +1,17 @@
+import { eq } from 'drizzle-orm'
 import { settingsPatchBody } from '#shared/utils/jobs/schemas'
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event, ['owner'])
-  const patch = await validBody(event, settingsPatchBody)
+  const { name, ...patch } = await validBody(event, settingsPatchBody)
   const db = useDb()
   await db.transaction(async (tx) => {
-    const next = { ...(await shopSettingsOf(tx, access.shopId)), ...patch }
-    await tx.insert(tables.shopSettings).values({ shopId: access.shopId, ...next }).onDuplicateKeyUpdate({ set: patch })
-    await audit(tx, { shopId: access.shopId, userId: access.userId, action: 'shop.settings', detail: patch })
+    if (name !== undefined) await tx.update(tables.shops).set({ name }).where(eq(tables.shops.id, access.shopId))
+    if (Object.keys(patch).length) {
+      const { name: _name, ...current } = await shopSettingsOf(tx, access.shopId)
+      await tx.insert(tables.shopSettings).values({ shopId: access.shopId, ...current, ...patch }).onDuplicateKeyUpdate({ set: patch })
+    }
+    await audit(tx, { shopId: access.shopId, userId: access.userId, action: 'shop.settings', detail: { name, ...patch } })
   })
   return shopSettingsOf(db, access.shopId)
 })

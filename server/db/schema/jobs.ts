@@ -87,6 +87,7 @@ export const jobEvents = mysqlTable('job_events', {
 ])
 
 export const INVOICE_STATES = ['draft', 'sent', 'paid', 'void'] as const
+export const PAYMENT_METHODS = ['online', 'cash', 'card'] as const
 
 /** Invoices are numbered by the server in sequence per shop, so they are never created offline. */
 export const invoices = mysqlTable('invoices', {
@@ -106,6 +107,8 @@ export const invoices = mysqlTable('invoices', {
   currency: varchar('currency', { length: 3 }).notNull().default('usd'),
   issuedAt: stamp('issued_at'),
   paidAt: stamp('paid_at'),
+  // How it was paid: online through the provider, or cash or card at the counter.
+  paidWith: mysqlEnum('paid_with', PAYMENT_METHODS),
   version: bigint('version', { mode: 'number', unsigned: true }).notNull(),
   ...timestamps(),
 }, t => [
@@ -124,11 +127,36 @@ export const payments = mysqlTable('payments', {
   id: uuid('id').primaryKey(),
   shopId: uuid('shop_id').notNull(),
   invoiceId: uuid('invoice_id').notNull(),
-  providerIntentId: varchar('provider_intent_id', { length: 255 }).notNull(),
+  // Null for money taken at the counter: no provider was involved.
+  providerIntentId: varchar('provider_intent_id', { length: 255 }),
+  method: mysqlEnum('method', PAYMENT_METHODS).notNull().default('online'),
   amountCents: int('amount_cents').notNull(),
   status: mysqlEnum('status', ['pending', 'succeeded', 'failed']).notNull().default('pending'),
+  recordedBy: uuid('recorded_by'),
   ...timestamps(),
-}, t => [uniqueIndex('payments_intent_uq').on(t.providerIntentId)])
+}, t => [
+  uniqueIndex('payments_intent_uq').on(t.providerIntentId),
+  index('payments_invoice_idx').on(t.invoiceId),
+])
+
+/**
+ * A link that opens and pays one invoice without an account (sent in the invoice e-mail).
+ * Only the token's SHA-256 is kept; the desk can revoke it, and it expires.
+ */
+export const payLinks = mysqlTable('pay_links', {
+  id: uuid('id').primaryKey(),
+  shopId: uuid('shop_id').notNull(),
+  invoiceId: uuid('invoice_id').notNull(),
+  tokenHash: varchar('token_hash', { length: 64 }).notNull(),
+  expiresAt: stamp('expires_at').notNull(),
+  revokedAt: stamp('revoked_at'),
+  revokedBy: uuid('revoked_by'),
+  createdBy: uuid('created_by'),
+  ...timestamps(),
+}, t => [
+  uniqueIndex('pay_links_token_uq').on(t.tokenHash),
+  index('pay_links_invoice_idx').on(t.invoiceId),
+])
 
 /** Webhook event ids already handled: a replay is acknowledged and ignored. */
 export const webhookEvents = mysqlTable('webhook_events', {
@@ -143,6 +171,12 @@ export const shopSettings = mysqlTable('shop_settings', {
   taxRateBasisPoints: int('tax_rate_bp').notNull().default(0),
   currency: varchar('currency', { length: 3 }).notNull().default('usd'),
   readyEmail: boolean('ready_email').notNull().default(true),
+  invoiceEmail: boolean('invoice_email').notNull().default(true),
+  paymentEmail: boolean('payment_email').notNull().default(true),
+  // What records and e-mails say about the shop.
+  address: varchar('address', { length: 300 }).notNull().default(''),
+  phone: varchar('phone', { length: 40 }).notNull().default(''),
+  email: varchar('email', { length: 254 }).notNull().default(''),
   ...timestamps(),
 })
 

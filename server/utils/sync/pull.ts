@@ -86,7 +86,7 @@ async function readInvoices(tx: Tx, a: Access, scope: Scope | null, from: number
     data: {
       jobId: r.jobId, number: r.number, kind: r.kind, state: r.state, lines: r.lines, partsCents: r.partsCents, labourCents: r.labourCents,
       subtotalCents: r.subtotalCents, taxRateBasisPoints: r.taxRateBasisPoints, taxCents: r.taxCents, totalCents: r.totalCents,
-      currency: r.currency, issuedAt: iso(r.issuedAt), paidAt: iso(r.paidAt), createdAt: iso(r.createdAt),
+      currency: r.currency, issuedAt: iso(r.issuedAt), paidAt: iso(r.paidAt), paidWith: r.paidWith, createdAt: iso(r.createdAt),
     },
   }))
 }

@@ -46,15 +46,29 @@ export const customerPatchBody = patchBody(ENTITY_FIELDS.customers)
 export const ampCreateBody = createBody(ENTITY_FIELDS.amps)
 export const ampPatchBody = patchBody(ENTITY_FIELDS.amps)
 
+const shopText = (max: number) => z.string().trim().max(max, { message: `at most ${max} characters` })
+
 export const settingsPatchBody = z.object({
+  name: shopText(120).min(1, { message: 'enter the shop\'s name' }),
+  address: shopText(300),
+  phone: shopText(40),
+  email: z.union([z.literal(''), z.email({ message: 'enter a valid e-mail address' })]),
   labourRateCents: z.number().int({ message: 'must be whole cents' }).min(0).max(10_000_000),
   taxRateBasisPoints: z.number().int({ message: 'must be whole basis points' }).min(0).max(10_000, { message: 'at most 10000 (100 %)' }),
   currency: z.string().regex(/^[A-Za-z]{3}$/, { message: 'use a three-letter currency code' }).transform(s => s.toLowerCase()),
   readyEmail: z.boolean(),
+  invoiceEmail: z.boolean(),
+  paymentEmail: z.boolean(),
 }).partial().refine(f => Object.keys(f).length > 0, { message: 'change at least one setting' })
 
 export const invoiceCreateBody = z.object({ kind: z.enum(['estimate', 'invoice']) })
 export const invoicePatchBody = z.object({ state: z.enum(['sent', 'void']) })
+export const counterPaymentBody = z.object({
+  method: z.enum(['cash', 'card'], { message: 'choose cash or card' }),
+  amountCents: z.number().int({ message: 'must be whole cents' }).min(1).max(100_000_000),
+})
+/** 256 random bits in base64url are 43 characters; anything else cannot be a pay link. */
+export const payTokenParams = z.object({ token: z.string().regex(/^[\w-]{43}$/) })
 
 /** The only invoice moves a person can make; 'paid' comes from the payment provider alone. */
 export const INVOICE_MOVES: Record<string, readonly string[]> = {

@@ -1,0 +1,13 @@
+import { idParams } from '#shared/utils/jobs/schemas'
+
+export default defineEventHandler(async (event) => {
+  const access = await requireActiveShopRole(event, ['owner', 'desk'])
+  const { id } = await validParams(event, idParams)
+  await findInvoice(useDb(), access.shopId, id)
+  const revoked = await useDb().transaction(async (tx) => {
+    const n = await revokePayLinks(tx, { shopId: access.shopId, invoiceId: id, userId: access.userId })
+    await audit(tx, { shopId: access.shopId, userId: access.userId, action: 'invoice.pay-link.revoke', detail: { invoiceId: id, revoked: n } })
+    return n
+  })
+  return { revoked }
+})
