@@ -7,7 +7,7 @@ export default defineNuxtRouteMiddleware(async (to) => {
     if (session.signedIn) void session.refresh()
     else await session.refresh()
   }
-  const isPublic = PUBLIC.includes(to.path) || to.path.startsWith('/invite/')
+  const isPublic = PUBLIC.includes(to.path) || to.path.startsWith('/invite/') || to.path.startsWith('/pay/')
   if (!session.signedIn && !isPublic) {
     return navigateTo({ path: '/signin', query: to.fullPath !== '/' ? { next: to.fullPath } : {} })
   }

@@ -50,5 +50,16 @@ export const useInvoicesStore = defineStore('invoices', () => {
     paying.value = paying.value.filter(p => p !== id)
   }
 
-  return { forJob, byId, paying, create, setState, fetchOne, pay }
+  /** Cash or card taken at the counter: paid at once, for exactly the total shown. */
+  async function takeAtCounter(id: string, method: 'cash' | 'card', amountCents: number) {
+    await $fetch(`/api/invoices/${id}/counter-payment`, { method: 'POST', body: { method, amountCents } })
+    sync.syncNow()
+  }
+
+  const payLinkStatus = (id: string) => $fetch<{ live: boolean, expiresAt: string | null }>(`/api/invoices/${id}/pay-link`)
+  /** A new link for the customer (e-mailed again); the old one stops working. */
+  const sendPayLink = (id: string) => $fetch<{ url: string, expiresAt: string, mailed: boolean }>(`/api/invoices/${id}/pay-link`, { method: 'POST' })
+  const revokePayLink = (id: string) => $fetch<{ revoked: number }>(`/api/invoices/${id}/pay-link`, { method: 'DELETE' })
+
+  return { forJob, byId, paying, create, setState, fetchOne, pay, takeAtCounter, payLinkStatus, sendPayLink, revokePayLink }
 })

@@ -1,8 +1,19 @@
 import { defineStore } from 'pinia'
 import { STORAGE_KEYS } from '~/utils/storage-keys'
 
-/** readyEmail is shop-internal: a player's copy leaves it out. */
-export interface ShopSettings { labourRateCents: number, taxRateBasisPoints: number, currency: string, readyEmail?: boolean }
+/** The e-mail switches are shop-internal: a player's copy leaves them out. */
+export interface ShopSettings {
+  name?: string
+  address?: string
+  phone?: string
+  email?: string
+  labourRateCents: number
+  taxRateBasisPoints: number
+  currency: string
+  readyEmail?: boolean
+  invoiceEmail?: boolean
+  paymentEmail?: boolean
+}
 
 /** The shop's rates and currency: read from the server, kept on the device for offline defaults. */
 export const useShopSettingsStore = defineStore('shopSettings', () => {
@@ -38,6 +49,8 @@ export const useShopSettingsStore = defineStore('shopSettings', () => {
 
   async function save(patch: Partial<ShopSettings>) {
     keep(await $fetch<ShopSettings>('/api/shop/settings', { method: 'PATCH', body: patch }))
+    // The shop's name shows in the header and switcher.
+    if (patch.name) await session.refresh()
   }
 
   const currency = computed(() => settings.value?.currency ?? 'USD')

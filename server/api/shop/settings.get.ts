@@ -3,7 +3,5 @@ export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event)
   const settings = await shopSettingsOf(useDb(), access.shopId)
   if (access.role !== 'player') return settings
-  const shown: Partial<ShopSettings> = { ...settings }
-  for (const key of INTERNAL_SETTINGS) delete shown[key]
-  return shown
+  return Object.fromEntries(Object.entries(settings).filter(([key]) => !(INTERNAL_SETTINGS as readonly string[]).includes(key)))
 })

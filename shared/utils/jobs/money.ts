@@ -87,3 +87,22 @@ export function readMoney(text: string): { ok: true, cents: number } | { ok: fal
     return { ok: false, message: (e as Error).message }
   }
 }
+
+/** Currencies a shop can bill in: all with two-digit minor units, as the cents model assumes. */
+export const SHOP_CURRENCIES = ['usd', 'eur', 'gbp', 'cad', 'aud', 'nzd', 'chf', 'sek', 'nok', 'dkk'] as const
+
+/**
+ * A tax rate as typed ("8.25", "8,25 %") in basis points (hundredths of a percent), read with the
+ * same decimal rules as money. Refuses more than 100 %.
+ */
+export function parseRateBasisPoints(text: string): number {
+  const t = text.replace(/\s*%\s*$/, '')
+  // No rate has a thousands group, so "8.125" is three decimals, not 8125.
+  if (/[.,]\d{3,}$/.test(t.trim())) throw new RangeError('at most two decimals, like 8.25')
+  const bp = parseMoneyCents(t)
+  if (bp > 10_000) throw new RangeError('a tax rate is at most 100 %')
+  return bp
+}
+
+/** Basis points as a person reads a rate: 825 -> "8.25 %". */
+export const formatRate = (bp: number) => `${(bp / 100).toLocaleString('en-US', { maximumFractionDigits: 2 })} %`
