@@ -53,7 +53,7 @@ describe('a job from check-in to hand-back, on phones', () => {
     await desk.selectOption('#ci-customer-player', playerOption!)
     await desk.fill('#ci-amp-description', 'two-6V6 combo, fixed bias')
     await desk.fill('#ci-amp-serial', SERIAL)
-    await desk.fill('#ci-amp-tubeComplement', '2 × 6V6GT')
+    await desk.fill('#ci-amp-tubeComplement', '2 × 6V6GTA')
     await desk.fill('#ci-complaint', 'Hum at idle, one power tube glows orange')
     await desk.setInputFiles('[data-testid="photo-input"]', { name: 'amp.png', mimeType: 'image/png', buffer: PNG })
     await desk.locator('ul[aria-label="Photos"] img').waitFor()
