@@ -103,7 +103,8 @@ describe('estimates and invoices', () => {
     const [logged] = await sql<{ body: string, delivered: number }>('select body, delivered from sent_mail where to_address = ?', [email])
     // Source: arithmetic, worked by hand: 5 200 + 9 000 = 14 200; x 8.25 % = 1 171.5 -> 1 172; total 15 372 = $153.72.
     expect(logged!.body).toContain('$153.72')
-    expect(logged!.body).toContain(`/jobs/${job.id}`)
+    // An invoice's e-mail carries its pay link (no account needed), not the job page.
+    expect(logged!.body).toMatch(/\/pay\/[\w-]{43}/)
     expect(logged!.delivered).toBe(1)
     expect((await desk.patch(`/api/invoices/${inv.id}`, { state: 'sent' })).status).toBe(400)
     const voided = await owner.patch(`/api/invoices/${inv.id}`, { state: 'void' })

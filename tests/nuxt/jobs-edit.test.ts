@@ -26,6 +26,8 @@ describe('changing a job after check-in', () => {
     expect(jobs.byId(id)).toMatchObject({ promisedFor: '2026-12-09', complaint: 'No sound; fuse blows at switch-on.', accessories: 'footswitch' })
     expect(w.emitted('done')).toHaveLength(1)
     const sync = useSyncStore()
+    // The pending list is a live query of the outbox: it catches up a moment after the write.
+    await until(() => sync.pendingList.some(m => m.name === 'job.setFields'), 'the edit in the outbox list')
     const edits = sync.pendingList.filter(m => m.name === 'job.setFields')
     expect(edits.at(-1)?.args).toMatchObject({ id, fields: { priority: 'rush', promisedFor: '2026-12-09' } })
   })

@@ -3,5 +3,6 @@ export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event)
   const settings = await shopSettingsOf(useDb(), access.shopId)
   if (access.role !== 'player') return settings
-  return Object.fromEntries(Object.entries(settings).filter(([key]) => !(INTERNAL_SETTINGS as readonly string[]).includes(key)))
+  const internal: readonly string[] = INTERNAL_SETTINGS
+  return Object.fromEntries(Object.entries(settings).filter(([key]) => !internal.includes(key)))
 })
