@@ -4,10 +4,19 @@ import { ENTITY_DEFAULTS, ENTITY_FIELDS, type EntityFields, type EntityTable } f
 
 export type FieldErrors = Record<string, string>
 
+const count = (n: unknown) => Number(n).toLocaleString('en-US')
+
+// A limit the schema states without words of its own ("Too big: expected number to be <=100000") in words.
+function wordsOf(issue: z.core.$ZodIssue): string {
+  if (issue.code === 'too_big' && issue.origin === 'number' && issue.message.startsWith('Too big')) return `at most ${count(issue.maximum)}`
+  if (issue.code === 'too_small' && issue.origin === 'number' && issue.message.startsWith('Too small')) return `${issue.inclusive ? 'at least' : 'more than'} ${count(issue.minimum)}`
+  return issue.message
+}
+
 /** The first message for each field of a zod error, keyed `<prefix><field>`. */
 export function fieldErrors(error: z.ZodError, prefix = ''): FieldErrors {
   const errors: FieldErrors = {}
-  for (const issue of error.issues) errors[`${prefix}${String(issue.path[0] ?? '')}`] ??= issue.message
+  for (const issue of error.issues) errors[`${prefix}${String(issue.path[0] ?? '')}`] ??= wordsOf(issue)
   return errors
 }
 
