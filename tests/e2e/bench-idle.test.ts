@@ -76,7 +76,7 @@ describe('Idle dissipation in a phone-sized browser', () => {
     // A "what to do next" link to another tool opens that tool on the same page.
     await page.goto(`${BASE}/bench/cathode-resistor`)
     await page.locator('a[href="/bench/idle-dissipation"]').first().click()
-    await page.locator('#idle-amps').waitFor()
+    await page.locator('#idle-tube').waitFor()
     expect(await page.textContent('h1')).toContain('Idle dissipation')
 
     const shown = async (path: string) => {
