@@ -2,8 +2,8 @@ import { defineStore } from 'pinia'
 import { ENTITY_FIELDS, ENTITY_PREFIX, type EntityFields, type EntityTable } from '#shared/utils/sync/entities'
 import type { Table } from 'dexie'
 import type { MutationName } from '#shared/utils/sync/protocol'
-import type { EntityRecords } from '#shared/types/records'
-import type { EntityRow } from '~/utils/sync/local-db'
+import type { EntityRecords, InvoiceRecord } from '#shared/types/records'
+import type { EntityRow, InvoiceRow } from '~/utils/sync/local-db'
 import { fieldErrors, validateCreate, type FieldErrors } from '~/utils/jobs/check-in'
 
 // The device's rows and the schema's records are one shape: this stops compiling if they drift.
@@ -11,7 +11,9 @@ type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false
 const ONE_SHAPE: { [T in EntityTable]: Same<EntityRow<T>, EntityRecords[T]> } = {
   customers: true, amps: true, jobs: true, jobParts: true, jobLabour: true, procedureGates: true, procedureRuns: true,
 }
+const INVOICE_SHAPE: Same<InvoiceRow, InvoiceRecord> = true
 void ONE_SHAPE
+void INVOICE_SHAPE
 
 type Dated = { createdAt: string }
 export const oldestFirst = (a: Dated, b: Dated) => (a.createdAt < b.createdAt ? -1 : a.createdAt > b.createdAt ? 1 : 0)
