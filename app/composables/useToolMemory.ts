@@ -1,6 +1,6 @@
 import type { BenchToolId } from '#shared/utils/bench/index'
 import { STORAGE_KEYS } from '~/utils/storage-keys'
-import { INLINE_TOOL } from '~/utils/inline-tool'
+import { INLINE_TOOL } from '~/utils/bench-tools'
 
 type FormState = Record<string, string>
 

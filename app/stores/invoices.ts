@@ -1,5 +1,5 @@
 import { defineStore } from 'pinia'
-import type { InvoiceRow } from '~/utils/sync/local-db'
+import type { InvoiceRecord } from '#shared/types/records'
 
 export const NEEDS_CONNECTION = 'This needs a connection to the shop server. Your other work stays on this device.'
 const PAY_POLL_MS = 2_000
@@ -20,7 +20,7 @@ export const useInvoicesStore = defineStore('invoices', () => {
   /** Invoices whose payment went to the payment service and is not yet confirmed. */
   const paying = ref<string[]>([])
 
-  async function create(jobId: string, kind: InvoiceRow['kind']) {
+  async function create(jobId: string, kind: InvoiceRecord['kind']) {
     const inv = await $fetch<{ id: string }>(`/api/jobs/${jobId}/invoices`, { method: 'POST', body: { kind } })
     sync.syncNow()
     return inv.id

@@ -2,12 +2,10 @@ import { defineStore } from 'pinia'
 import { findProcedure, gateComplete, mayRun, validVariant } from '#shared/utils/procedures/index'
 import type { StepReading } from '#shared/utils/procedures/index'
 import type { EntityFields } from '#shared/utils/sync/entities'
-import type { EntityRow } from '~/utils/sync/local-db'
+import type { ProcedureGateRecord, ProcedureRunRecord } from '#shared/types/records'
 
-export type RunRow = EntityRow<'procedureRuns'>
-export type GateRow = EntityRow<'procedureGates'>
-
-const newestFirst = (a: RunRow, b: RunRow) => (a.createdAt < b.createdAt ? 1 : a.createdAt > b.createdAt ? -1 : 0)
+export type RunRow = ProcedureRunRecord
+export type GateRow = ProcedureGateRecord
 
 export interface RunStart {
   procedureId: string
@@ -23,19 +21,17 @@ export interface RunStart {
 export const useProceduresStore = defineStore('procedures', () => {
   const sync = useSyncStore()
   const session = useSessionStore()
-  const runTable = useShopTable('procedureRuns')
-  const gateTable = useShopTable('procedureGates')
+  const runTable = useEntityTable('procedureRuns', { noun: 'run', order: newestFirst })
+  const gateTable = useEntityTable('procedureGates', { noun: 'safety check' })
 
-  const runs = computed(() => [...runTable.list.value].sort(newestFirst))
+  const runs = runTable.all
   const loaded = computed(() => runTable.loaded.value && gateTable.loaded.value)
   const mine = computed(() => runs.value.filter(r => r.createdBy === session.user?.id))
   const unfinished = computed(() => mine.value.filter(r => r.status === 'running'))
-  const find = (id: string) => runs.value.find(r => r.id === id)
-  const forJob = (jobId: string) => runs.value.filter(r => r.jobId === jobId)
 
   /** The run's own acknowledged safety check, if this device has it. */
   function gateOf(run: Pick<RunRow, 'id' | 'gateId' | 'procedureId'>): GateRow | undefined {
-    const gate = gateTable.list.value.find(g => g.id === run.gateId)
+    const gate = gateTable.byId(run.gateId)
     const procedure = findProcedure(run.procedureId)
     if (!gate || !procedure || gate.runId !== run.id || !gateComplete(procedure, gate.items)) return undefined
     return gate
@@ -57,22 +53,13 @@ export const useProceduresStore = defineStore('procedures', () => {
     if (!validVariant(procedure, s.variant)) throw new Error('Choose how you will measure.')
     if (!gateComplete(procedure, s.items)) throw new Error('Tick every item of the safety check first.')
     const runId = crypto.randomUUID()
-    const gateId = crypto.randomUUID()
     // The check goes first: the server takes a run only with its check already in place.
-    await sync.mutate('procedureGate.create', {
-      id: gateId, runId, procedureId: s.procedureId, jobId: s.jobId, items: s.items, acknowledgedAt: new Date().toISOString(),
-    })
-    await sync.mutate('procedureRun.create', {
-      id: runId, procedureId: s.procedureId, gateId, variant: s.variant, jobId: s.jobId, tubeCount: s.tubeCount, capCount: s.capCount,
-    })
+    const gateId = await gateTable.create({ runId, procedureId: s.procedureId, jobId: s.jobId, items: s.items, acknowledgedAt: new Date().toISOString() })
+    await runTable.create({ procedureId: s.procedureId, gateId, variant: s.variant, jobId: s.jobId, tubeCount: s.tubeCount, capCount: s.capCount }, runId)
     return runId
   }
 
-  async function change(runId: string, fields: Partial<EntityFields<'procedureRuns'>>) {
-    const row = await sync.db?.procedureRuns.get(runId)
-    if (!row) throw new Error('That run is not on this device.')
-    await sync.mutate('procedureRun.setFields', { id: runId, fields }, row.version)
-  }
+  const change = (runId: string, fields: Partial<EntityFields<'procedureRuns'>>) => runTable.edit(runId, fields)
 
   /** Record a step as done (with its reading, if any) and move the run on to `nextIndex`. */
   async function record(run: RunRow, stepKey: string, reading: StepReading, nextIndex: number) {
@@ -101,5 +88,5 @@ export const useProceduresStore = defineStore('procedures', () => {
     await change(run.id, { status: 'stopped', endedAt: new Date().toISOString(), endReason: reason.slice(0, 500) })
   }
 
-  return { runs, loaded, mine, unfinished, find, forJob, gateOf, hasGatedRun, start, record, stopAt, clearReading, finish, end }
+  return { runs, loaded, mine, unfinished, find: runTable.byId, forJob: runTable.forJob, gateOf, hasGatedRun, start, record, stopAt, clearReading, finish, end }
 })

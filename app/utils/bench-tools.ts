@@ -1,3 +1,6 @@
+// The one registry of bench tools: what each says on the Bench, its screen, and how a procedure
+// step hosts the same screen inline.
+import type { Component, InjectionKey, Ref } from 'vue'
 import type { BenchToolId } from '#shared/utils/bench/index'
 
 export interface BenchCautionText {
@@ -17,6 +20,8 @@ export interface BenchToolMeta {
   /** "How this is worked out", one line per step, plain text. */
   formula: string[]
   next: { text: string, to?: string }[]
+  /** The tool's screen, loaded when first shown (the same on the Bench and inside a step). */
+  screen: () => Promise<Component>
 }
 
 const LIVE_AMP: BenchCautionText = {
@@ -32,6 +37,7 @@ const LIVE_AMP: BenchCautionText = {
 export const BENCH_TOOLS: readonly BenchToolMeta[] = [
   {
     id: 'idle-dissipation',
+    screen: () => import('~/components/bench/BenchIdleDissipation.vue').then(m => m.default),
     title: 'Idle dissipation',
     summary: 'How hot each power tube idles, from the reading you took.',
     lead: 'Turn an idle-current reading into plate dissipation per tube, and see where it sits against the tube\'s rating.',
@@ -55,6 +61,7 @@ export const BENCH_TOOLS: readonly BenchToolMeta[] = [
   },
   {
     id: 'cathode-resistor',
+    screen: () => import('~/components/bench/BenchCathodeResistor.vue').then(m => m.default),
     title: 'Cathode resistor',
     summary: 'Size a cathode resistor, its wattage and its bypass cap.',
     lead: 'Work out the cathode resistor for a target current or a target share of the tube\'s rating, with its power rating and bypass capacitor.',
@@ -73,6 +80,7 @@ export const BENCH_TOOLS: readonly BenchToolMeta[] = [
   },
   {
     id: 'bias-supply',
+    screen: () => import('~/components/bench/BenchBiasSupply.vue').then(m => m.default),
     title: 'Bias supply',
     summary: 'The adjustment range of a fixed-bias supply.',
     lead: 'Find the range of grid voltage a half-wave bias supply and its divider can give, and whether your target sits inside it.',
@@ -98,6 +106,7 @@ export const BENCH_TOOLS: readonly BenchToolMeta[] = [
   },
   {
     id: 'clean-power',
+    screen: () => import('~/components/bench/BenchCleanPower.vue').then(m => m.default),
     title: 'Clean power',
     summary: 'Output watts from a scope or meter reading on a dummy load.',
     lead: 'Turn the voltage across a dummy load into clean output watts, and compare two readings.',
@@ -122,6 +131,7 @@ export const BENCH_TOOLS: readonly BenchToolMeta[] = [
   },
   {
     id: 'cap-drain',
+    screen: () => import('~/components/bench/BenchCapDrain.vue').then(m => m.default),
     title: 'Cap drain',
     summary: 'How long filter caps take to drain, and what they store.',
     lead: 'Estimate how long the filter capacitors take to drain through a resistor, and how much energy they hold.',
@@ -147,6 +157,7 @@ export const BENCH_TOOLS: readonly BenchToolMeta[] = [
   },
   {
     id: 'load-reflection',
+    screen: () => import('~/components/bench/BenchLoadReflection.vue').then(m => m.default),
     title: 'Load reflection',
     summary: 'What a speaker on a tap looks like to the output tubes.',
     lead: 'Find the transformer\'s turns ratio and the primary impedance a speaker on a given tap reflects.',
@@ -162,6 +173,7 @@ export const BENCH_TOOLS: readonly BenchToolMeta[] = [
   },
   {
     id: 'rc-corner',
+    screen: () => import('~/components/bench/BenchRcCorner.vue').then(m => m.default),
     title: 'RC corner',
     summary: 'Corner frequency of a resistor and capacitor, either way round.',
     lead: 'Find the −3 dB corner of an RC pair, or the capacitor for the corner you want.',
@@ -170,6 +182,7 @@ export const BENCH_TOOLS: readonly BenchToolMeta[] = [
   },
   {
     id: 'tube-sorter',
+    screen: () => import('~/components/bench/BenchTubeSorter.vue').then(m => m.default),
     title: 'Tube sorter',
     summary: 'Sort tube readings into matched pairs or quads, and print labels.',
     lead: 'Type one reading per tube and get matched sets within your tolerance, plus labels to print.',
@@ -184,8 +197,21 @@ export const BENCH_TOOLS: readonly BenchToolMeta[] = [
   },
 ]
 
+/** The tool with this id (as in its URL), if there is one. */
+export const findBenchTool = (id: string): BenchToolMeta | undefined => BENCH_TOOLS.find(t => t.id === id)
+
 export function benchTool(id: BenchToolId): BenchToolMeta {
-  const meta = BENCH_TOOLS.find(t => t.id === id)
+  const meta = findBenchTool(id)
   if (!meta) throw new Error(`no bench tool ${id}`)
   return meta
 }
+
+/** A bench tool shown inside a procedure step: preset choices in, the live result out. */
+export interface InlineToolContext {
+  tool: BenchToolId
+  /** Form values to set when the step opens (choices, values from earlier steps, cleared readings). */
+  presets: Record<string, string>
+  result: Ref<{ inputs: unknown, outputs: unknown } | null>
+}
+
+export const INLINE_TOOL: InjectionKey<InlineToolContext> = Symbol('inline-tool')

@@ -65,4 +65,30 @@ describe('Idle dissipation in a phone-sized browser', () => {
     await expect.poll(() => page.textContent('[data-testid="band"]')).toContain('warm')
     await page.context().close()
   })
+
+  it('opens every tool from the Bench list at its own address, and an unknown tool is the app\'s 404 page', async () => {
+    const page = await signedInPage('light')
+    await page.goto(`${BASE}/`)
+    await page.locator('a[href="/bench/cap-drain"]').click()
+    await page.waitForURL(/\/bench\/cap-drain$/)
+    await expect.poll(() => page.textContent('h1')).toContain('Cap drain')
+    expect(await page.title()).toBe('Cap drain · Tubewright')
+    // A "what to do next" link to another tool opens that tool on the same page.
+    await page.goto(`${BASE}/bench/cathode-resistor`)
+    await page.locator('a[href="/bench/idle-dissipation"]').first().click()
+    await page.locator('#idle-tube').waitFor()
+    expect(await page.textContent('h1')).toContain('Idle dissipation')
+
+    const shown = async (path: string) => {
+      const r = await page.goto(`${BASE}${path}`)
+      await page.waitForFunction(() => document.body.innerText.includes('404'))
+      return { status: r?.status(), text: (await page.textContent('body'))!.replace(path, '<path>') }
+    }
+    const unknownPage = await shown('/no-such-page')
+    const unknownTool = await shown('/bench/no-such-tool')
+    expect(unknownTool.text).toContain('404')
+    expect(unknownTool.text).not.toContain('Inputs')
+    expect(unknownTool.status).toBe(unknownPage.status)
+    await page.context().close()
+  })
 })
