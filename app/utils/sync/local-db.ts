@@ -121,8 +121,7 @@ export interface InvoiceRow extends ViewBase {
   currency: string
   issuedAt: string | null
   paidAt: string | null
-  /** Absent on rows pulled before it existed. */
-  paidWith?: 'online' | 'cash' | 'card' | null
+  paidWith: 'online' | 'cash' | 'card' | null
 }
 
 export interface RejectionRow {
