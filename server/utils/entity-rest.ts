@@ -6,7 +6,7 @@ import type { ShopAccess } from './authz'
 import { applyDirect } from './sync/direct'
 import { ENTITY_POLICIES } from './sync/entity-policies'
 
-const LABEL: Record<EntityTable, string> = { customers: 'Customer', amps: 'Amp', jobs: 'Job', jobParts: 'Part', jobLabour: 'Labour line', procedureGates: 'Safety check', procedureRuns: 'Procedure run' }
+const LABEL: Record<EntityTable, string> = { customers: 'Customer', amps: 'Amp', jobs: 'Job', jobParts: 'Part', jobLabour: 'Labour line', notes: 'Note', measurements: 'Bench result', procedureGates: 'Safety check', procedureRuns: 'Procedure run' }
 
 /** A record as the REST routes show it: the sync bookkeeping (field stamps) left out. */
 export function publicRow<R extends { fieldStamps?: unknown }>(row: R): Omit<R, 'fieldStamps'> {

@@ -54,28 +54,6 @@ interface ViewBase {
   pending: number
 }
 
-export interface NoteRow extends ViewBase {
-  jobId: string | null
-  title: string
-  body: string
-  visibility: 'internal' | 'customer'
-  authorId: string
-  createdAt: string
-  updatedAt: string
-}
-
-export interface MeasurementRow extends ViewBase {
-  jobId: string | null
-  rigId: string | null
-  tool: string
-  inputs: Record<string, unknown>
-  outputs: Record<string, unknown>
-  engineVersion: string
-  label: string | null
-  authorId: string
-  createdAt: string
-}
-
 export interface ConflictRow extends ViewBase {
   tableName: SyncedTable
   rowId: string
@@ -90,13 +68,18 @@ export interface ConflictRow extends ViewBase {
   note: string | null
 }
 
-/** A field-versioned record (customer, amp, job, part, labour) as this device sees it. */
+/** A synced record (customer, amp, job, part, labour, note, bench result, procedure check or run) as this device sees it. */
 export type EntityRow<T extends EntityTable> = ViewBase & EntityFields<T> & {
   createdBy: string
+  /** The same person as createdBy, under the name the notebook and job screens read. */
+  authorId: string
   updatedBy: string | null
   createdAt: string
   updatedAt: string
 }
+
+export type NoteRow = EntityRow<'notes'>
+export type MeasurementRow = EntityRow<'measurements'>
 
 export interface JobEventRow extends ViewBase {
   jobId: string

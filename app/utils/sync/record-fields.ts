@@ -12,7 +12,7 @@ const PRIORITY_LABELS = { low: 'Low', normal: 'Normal', rush: 'Rush' }
 const RUN_STATUS_LABELS = { running: 'Running', done: 'Done', stopped: 'Stopped' }
 
 export const RECORD_NOUNS: Record<string, string> = {
-  notes: 'Note', customers: 'Customer', amps: 'Amp', jobs: 'Job', jobParts: 'Part',
+  notes: 'Note', measurements: 'Bench result', customers: 'Customer', amps: 'Amp', jobs: 'Job', jobParts: 'Part',
   jobLabour: 'Labour', procedureGates: 'Safety check', procedureRuns: 'Procedure run',
 }
 

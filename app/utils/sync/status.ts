@@ -34,7 +34,7 @@ export function itemSyncState(row: { id: string, version: number, pending: numbe
   return 'synced'
 }
 
-const ENTITY_WORDS: Record<EntityTable, string> = { customers: 'Customer', amps: 'Amp', jobs: 'Job', jobParts: 'Part', jobLabour: 'Labour', procedureGates: 'Safety check', procedureRuns: 'Procedure run' }
+const ENTITY_WORDS: Record<EntityTable, string> = { customers: 'Customer', amps: 'Amp', jobs: 'Job', jobParts: 'Part', jobLabour: 'Labour', notes: 'Note', measurements: 'Bench result', procedureGates: 'Safety check', procedureRuns: 'Procedure run' }
 const VERB_WORDS = { create: 'added', setFields: 'edited', delete: 'deleted', restore: 'restored' } as const
 
 const CHANGE_NAMES: Partial<Record<MutationName, string>> = {
@@ -44,6 +44,7 @@ const CHANGE_NAMES: Partial<Record<MutationName, string>> = {
   'note.restore': 'Note restored',
   'measurement.create': 'Bench result saved',
   'measurement.delete': 'Bench result deleted',
+  'measurement.restore': 'Bench result restored',
   'conflict.resolve': 'Decision on a conflict',
 }
 

@@ -1,7 +1,7 @@
 import { ampPatchBody, idParams } from '#shared/utils/jobs/schemas'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'desk', 'tech'])
+  const access = await requireActiveShopRole(event, rolesFor('amps', 'update'))
   const { id } = await validParams(event, idParams)
   const fields = await validBody(event, ampPatchBody)
   return patchEntity(access, 'amps', id, fields)

@@ -5,7 +5,7 @@ import { searchQuery } from '#shared/utils/jobs/schemas'
 const ampQuery = searchQuery.extend({ customer: z.uuid({ message: 'must be an id' }).optional() })
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, STAFF_ROLES)
+  const access = await requireActiveShopRole(event, rolesFor('amps', 'read'))
   const query = await validQuery(event, ampQuery)
   const a = tables.amps
   const where = and(eq(a.shopId, access.shopId), isNull(a.deletedAt),

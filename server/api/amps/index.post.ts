@@ -1,7 +1,7 @@
 import { ampCreateBody } from '#shared/utils/jobs/schemas'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'desk', 'tech'])
+  const access = await requireActiveShopRole(event, rolesFor('amps', 'create'))
   const body = await validBody(event, ampCreateBody)
   const amp = await createEntity(access, 'amps', body)
   setResponseStatus(event, 201)

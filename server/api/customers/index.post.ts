@@ -1,7 +1,7 @@
 import { customerCreateBody } from '#shared/utils/jobs/schemas'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'desk'])
+  const access = await requireActiveShopRole(event, rolesFor('customers', 'create'))
   const body = await validBody(event, customerCreateBody)
   const customer = await createEntity(access, 'customers', body)
   setResponseStatus(event, 201)

@@ -1,7 +1,7 @@
 import { idParams } from '#shared/utils/jobs/schemas'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner'])
+  const access = await requireActiveShopRole(event, rolesFor('jobs', 'remove'))
   const { id } = await validParams(event, idParams)
   return deleteEntity(access, 'jobs', id)
 })

@@ -31,7 +31,7 @@ export default defineEventHandler(async (event) => {
     labour: labour.map(publicRow),
     events,
     notes: notes.map(publicRow),
-    measurements,
+    measurements: measurements.map(publicRow),
     invoices,
     // The same rule and settings an invoice made now would use, for every role that sees the job.
     totals: { ...invoiceTotals(parts, labour, settings.taxRateBasisPoints), taxRateBasisPoints: settings.taxRateBasisPoints, currency: settings.currency },

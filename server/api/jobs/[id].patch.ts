@@ -1,7 +1,7 @@
 import { idParams, jobPatchBody } from '#shared/utils/jobs/schemas'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'desk', 'tech'])
+  const access = await requireActiveShopRole(event, rolesFor('jobs', 'update'))
   const { id } = await validParams(event, idParams)
   const fields = await validBody(event, jobPatchBody)
   return patchEntity(access, 'jobs', id, fields)

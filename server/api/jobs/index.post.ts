@@ -1,7 +1,7 @@
 import { jobCreateBody } from '#shared/utils/jobs/schemas'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'desk'])
+  const access = await requireActiveShopRole(event, rolesFor('jobs', 'create'))
   const body = await validBody(event, jobCreateBody)
   const job = await createEntity(access, 'jobs', body)
   setResponseStatus(event, 201)

@@ -1,7 +1,7 @@
 import { gateCreateBody } from '#shared/utils/procedures/schemas'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'tech', 'player'])
+  const access = await requireActiveShopRole(event, rolesFor('procedureGates', 'create'))
   const body = await validBody(event, gateCreateBody)
   const gate = await createEntity(access, 'procedureGates', body)
   setResponseStatus(event, 201)

@@ -1,7 +1,7 @@
 import { settingsPatchBody } from '#shared/utils/jobs/schemas'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner'])
+  const access = await requireActiveShopRole(event, rolesFor('shopSettings', 'update'))
   const patch = await validBody(event, settingsPatchBody)
   const db = useDb()
   await db.transaction(async (tx) => {

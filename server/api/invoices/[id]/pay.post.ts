@@ -1,10 +1,9 @@
 import { randomUUID } from 'node:crypto'
 import { and, eq, inArray } from 'drizzle-orm'
 import { idParams } from '#shared/utils/jobs/schemas'
-import { withRetry } from '../../../utils/sync/errors'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'desk', 'player'])
+  const access = await requireActiveShopRole(event, rolesFor('invoices', 'pay'))
   const { id } = await validParams(event, idParams)
   const invoice = await visibleInvoice(access, id)
   const refuse = (why: string) => createError({ statusCode: 409, message: why })
