@@ -22,6 +22,8 @@ async function push(c: Client, shopId: string, changes: { name: string, args: un
 }
 const statuses = (rs: Result[]) => rs.map(r => r.status)
 const meOf = async (c: Client) => (await c.get('/api/auth/me')).body.user.id as string
+/** The version a device would have seen: a change based on it is not a conflict. */
+const seen = async (table: 'notes' | 'measurements', id: string) => Number((await sql(`select version from ${table} where id = ?`, [id]))[0].version)
 
 describe('notes and bench results as ordinary synced records', () => {
   it('applies note.create, setFields, delete and restore with the same arguments as before, and pulls them with their author', async () => {
@@ -42,11 +44,11 @@ describe('notes and bench results as ordinary synced records', () => {
     await d.engine.pull()
     expect(await d.db.notes.get(id)).toMatchObject({ body: 'Hum at idle: filter caps replaced.', createdBy: techId, authorId: techId, pending: 0 })
 
-    expect(statuses(await push(owner, shopId, [{ name: 'note.delete', args: { id } }]))).toEqual(['applied'])
+    expect(statuses(await push(owner, shopId, [{ name: 'note.delete', args: { id }, baseVersion: await seen('notes', id) }]))).toEqual(['applied'])
     expect((await sql('select deleted_at from notes where id = ?', [id]))[0].deleted_at).not.toBeNull()
     await d.engine.pull()
     expect((await d.db.notes.get(id))!.deleted).toBe(true)
-    expect(statuses(await push(owner, shopId, [{ name: 'note.restore', args: { id } }]))).toEqual(['applied'])
+    expect(statuses(await push(owner, shopId, [{ name: 'note.restore', args: { id }, baseVersion: await seen('notes', id) }]))).toEqual(['applied'])
     await d.engine.pull()
     expect((await d.db.notes.get(id))!.deleted).toBe(false)
   })
@@ -72,9 +74,9 @@ describe('notes and bench results as ordinary synced records', () => {
     expect(statuses(await push(tech, DEMO.shopId, [{ name: 'note.create', args: { id: shops, jobId: null, body: 'Shop note.' } }]))).toEqual(['applied'])
 
     const rs = await push(dana, DEMO.shopId, [
-      { name: 'note.setFields', args: { id: shops, fields: { body: 'changed by a player' } } },
-      { name: 'note.delete', args: { id: shops } },
-      { name: 'note.setFields', args: { id: mine, fields: { body: 'Crackle on the reverb, only when warm.' } } },
+      { name: 'note.setFields', args: { id: shops, fields: { body: 'changed by a player' } }, baseVersion: await seen('notes', shops) },
+      { name: 'note.delete', args: { id: shops }, baseVersion: await seen('notes', shops) },
+      { name: 'note.setFields', args: { id: mine, fields: { body: 'Crackle on the reverb, only when warm.' } }, baseVersion: await seen('notes', mine) },
     ])
     expect(rs.map(r => [r.status, r.reason])).toEqual([
       ['rejected', 'players may change only their own notes'],
@@ -82,7 +84,7 @@ describe('notes and bench results as ordinary synced records', () => {
       ['applied', undefined],
     ])
     expect((await sql('select body, deleted_at from notes where id = ?', [shops]))[0]).toEqual({ body: 'Shop note.', deleted_at: null })
-    expect(statuses(await push(tech, DEMO.shopId, [{ name: 'note.setFields', args: { id: mine, fields: { title: 'Reverb' } } }]))).toEqual(['applied'])
+    expect(statuses(await push(tech, DEMO.shopId, [{ name: 'note.setFields', args: { id: mine, fields: { title: 'Reverb' } }, baseVersion: await seen('notes', mine) }]))).toEqual(['applied'])
   })
 
   it('takes a bench result only when the server gets the same result from its inputs, never edits one, and lets only its author or the owner delete it', async () => {
@@ -105,10 +107,11 @@ describe('notes and bench results as ordinary synced records', () => {
     const edit = await tech.post('/api/sync/push', { clientId: randomUUID(), shopId, schemaVersion: SYNC_SCHEMA_VERSION, mutations: [{ id: 1, uuid: randomUUID(), name: 'measurement.setFields', args: { id: good, fields: { label: 'V2' } } }] })
     expect(edit.status).toBe(426)
 
-    const byOther = await push(tech2, shopId, [{ name: 'measurement.delete', args: { id: good } }])
+    const v = await seen('measurements', good)
+    const byOther = await push(tech2, shopId, [{ name: 'measurement.delete', args: { id: good }, baseVersion: v }])
     expect(byOther.map(r => [r.status, r.reason])).toEqual([['rejected', 'only its author or the owner may delete a measurement']])
-    expect(statuses(await push(tech, shopId, [{ name: 'measurement.delete', args: { id: good } }, { name: 'measurement.restore', args: { id: good } }]))).toEqual(['applied', 'applied'])
-    expect(statuses(await push(owner, shopId, [{ name: 'measurement.delete', args: { id: other } }]))).toEqual(['applied'])
+    expect(statuses(await push(tech, shopId, [{ name: 'measurement.delete', args: { id: good }, baseVersion: v }, { name: 'measurement.restore', args: { id: good }, baseVersion: v }]))).toEqual(['applied', 'applied'])
+    expect(statuses(await push(owner, shopId, [{ name: 'measurement.delete', args: { id: other }, baseVersion: await seen('measurements', other) }]))).toEqual(['applied'])
     const rows = await sql<{ id: string, deleted_at: Date | null }>('select id, deleted_at from measurements where id in (?, ?)', [good, other])
     expect(Object.fromEntries(rows.map(r => [r.id, r.deleted_at === null]))).toEqual({ [good]: true, [other]: false })
   })
