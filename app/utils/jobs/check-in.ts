@@ -1,5 +1,5 @@
 // The check-in form's validation: the same zod schemas the server applies, with the message beside each field.
-import { ENTITY_DEFAULTS, ENTITY_FIELDS, type EntityFields, type EntityTable } from '../../../shared/utils/sync/entities'
+import { ENTITY_DEFAULTS, ENTITY_FIELDS, type EntityFields, type EntityTable } from '#shared/utils/sync/entities'
 
 export type FieldErrors = Record<string, string>
 

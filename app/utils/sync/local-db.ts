@@ -1,8 +1,8 @@
 // The on-device database: one per signed-in user. Plain Dexie, no Vue, so tests run it in node.
 import Dexie, { type Table } from 'dexie'
-import type { MutationName, SyncedTable } from '../../../shared/utils/sync/protocol'
-import type { EntityFields, EntityTable } from '../../../shared/utils/sync/entities'
-import type { JobState } from '../../../shared/utils/jobs/states'
+import type { MutationName, SyncedTable } from '#shared/utils/sync/protocol'
+import type { EntityFields, EntityTable } from '#shared/utils/sync/entities'
+import type { JobState } from '#shared/utils/jobs/states'
 import { STORAGE_KEYS } from '../storage-keys'
 
 export const LOCAL_DB_PREFIX = STORAGE_KEYS.localDbPrefix

@@ -1,7 +1,7 @@
 // How each synced record and field reads on screen: its name, and its values as the app shows them.
-import { JOB_STATE_LABELS, type JobState } from '../../../shared/utils/jobs/states'
-import { formatMoney } from '../../../shared/utils/jobs/money'
-import { findProcedure } from '../../../shared/utils/procedures/index'
+import { JOB_STATE_LABELS, type JobState } from '#shared/utils/jobs/states'
+import { formatMoney } from '#shared/utils/jobs/money'
+import { findProcedure } from '#shared/utils/procedures/index'
 
 /** text: free text a person may merge; the rest are picked, never typed. */
 export type FieldKind = 'text' | 'longtext' | 'enum' | 'money' | 'number' | 'minutes' | 'date' | 'person' | 'record' | 'other'

@@ -1,6 +1,6 @@
 // What the person sees about sync: four states, each with its own word and shape.
-import type { MutationName } from '../../../shared/utils/sync/protocol'
-import { entityOf, type EntityTable } from '../../../shared/utils/sync/entities'
+import type { MutationName } from '#shared/utils/sync/protocol'
+import { entityOf, type EntityTable } from '#shared/utils/sync/entities'
 
 export type SyncState = 'local' | 'sending' | 'synced' | 'conflict'
 export type ItemSyncState = Exclude<SyncState, 'sending'>

@@ -1,4 +1,4 @@
-import { ampPatchBody, idParams } from '#shared/utils/jobs/schemas'
+import { ampPatchBody, idParams } from '#shared/utils/schemas/jobs'
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event, rolesFor('amps', 'update'))

@@ -1,6 +1,6 @@
 import { and, asc, count, eq, isNull, like } from 'drizzle-orm'
 import { z } from 'zod'
-import { searchQuery } from '#shared/utils/jobs/schemas'
+import { searchQuery } from '#shared/utils/schemas/jobs'
 
 const ampQuery = searchQuery.extend({ customer: z.uuid({ message: 'must be an id' }).optional() })
 

@@ -1,4 +1,4 @@
-import { ampCreateBody } from '#shared/utils/jobs/schemas'
+import { ampCreateBody } from '#shared/utils/schemas/jobs'
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event, rolesFor('amps', 'create'))

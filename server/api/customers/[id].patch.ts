@@ -1,4 +1,4 @@
-import { customerPatchBody, idParams } from '#shared/utils/jobs/schemas'
+import { customerPatchBody, idParams } from '#shared/utils/schemas/jobs'
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event, rolesFor('customers', 'update'))

@@ -1,5 +1,5 @@
 import { and, asc, count, eq, isNull, like, or } from 'drizzle-orm'
-import { searchQuery } from '#shared/utils/jobs/schemas'
+import { searchQuery } from '#shared/utils/schemas/jobs'
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event, rolesFor('customers', 'read'))

@@ -1,4 +1,4 @@
-import { customerCreateBody } from '#shared/utils/jobs/schemas'
+import { customerCreateBody } from '#shared/utils/schemas/jobs'
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event, rolesFor('customers', 'create'))

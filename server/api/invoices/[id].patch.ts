@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { idParams, INVOICE_MOVES, invoicePatchBody } from '#shared/utils/jobs/schemas'
+import { idParams, INVOICE_MOVES, invoicePatchBody } from '#shared/utils/schemas/jobs'
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event, rolesFor('invoices', 'update'))

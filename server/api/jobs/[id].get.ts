@@ -1,6 +1,6 @@
 import { and, asc, desc, eq, isNull, ne } from 'drizzle-orm'
 import type { AnyMySqlColumn } from 'drizzle-orm/mysql-core'
-import { idParams } from '#shared/utils/jobs/schemas'
+import { idParams } from '#shared/utils/schemas/records'
 import { invoiceTotals } from '#shared/utils/jobs/money'
 
 export default defineEventHandler(async (event) => {

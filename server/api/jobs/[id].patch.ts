@@ -1,4 +1,4 @@
-import { idParams, jobPatchBody } from '#shared/utils/jobs/schemas'
+import { idParams, jobPatchBody } from '#shared/utils/schemas/jobs'
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event, rolesFor('jobs', 'update'))

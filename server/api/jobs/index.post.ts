@@ -1,4 +1,4 @@
-import { jobCreateBody } from '#shared/utils/jobs/schemas'
+import { jobCreateBody } from '#shared/utils/schemas/jobs'
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event, rolesFor('jobs', 'create'))

@@ -1,4 +1,4 @@
-import { gateCreateBody } from '#shared/utils/procedures/schemas'
+import { gateCreateBody } from '#shared/utils/schemas/procedures'
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event, rolesFor('procedureGates', 'create'))

@@ -1,5 +1,5 @@
-import { idParams } from '#shared/utils/jobs/schemas'
-import { runPatchBody } from '#shared/utils/procedures/schemas'
+import { idParams } from '#shared/utils/schemas/records'
+import { runPatchBody } from '#shared/utils/schemas/procedures'
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event, rolesFor('procedureRuns', 'update'))

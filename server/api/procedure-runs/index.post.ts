@@ -1,4 +1,4 @@
-import { runCreateBody } from '#shared/utils/procedures/schemas'
+import { runCreateBody } from '#shared/utils/schemas/procedures'
 
 // The run's own safety check must already be in (POST /api/procedure-gates); otherwise 400.
 export default defineEventHandler(async (event) => {

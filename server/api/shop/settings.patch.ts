@@ -1,4 +1,4 @@
-import { settingsPatchBody } from '#shared/utils/jobs/schemas'
+import { settingsPatchBody } from '#shared/utils/schemas/jobs'
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event, rolesFor('shopSettings', 'update'))

@@ -6,8 +6,8 @@ import { z } from 'zod'
 import { JOB_PRIORITIES, JOB_STATES } from '../jobs/states'
 import { MAX_REPEAT } from '../procedures/run'
 import { BENCH_TOOL_IDS } from '../bench/tool-schemas'
+import { id } from '../schemas/records'
 
-const id = z.uuid({ message: 'must be an id' })
 const text = (max: number) => z.string().trim().max(max, { message: `at most ${max} characters` })
 const cents = z.number().int({ message: 'must be whole cents' }).min(0).max(100_000_000)
 const sha256 = z.string().regex(/^[0-9a-f]{64}$/, { message: 'must be a photo hash' })

@@ -1,13 +1,12 @@
 // The sync wire protocol: push and pull bodies, mutation names and their arguments.
 import { z } from 'zod'
 import { ENTITY_MUTATIONS, ENTITY_TABLES, type EntityTable } from './entities'
+import { id } from '../schemas/records'
 
 /** Bumped when a mutation's arguments or a table's shape change incompatibly (2: notes and bench results carry createdBy). */
 export const SYNC_SCHEMA_VERSION = 2
 export const PULL_PAGE_SIZE = 500
 export const MAX_PUSH_MUTATIONS = 500
-
-const id = z.uuid({ message: 'must be an id' })
 
 export const MUTATION_ARGS = {
   'conflict.resolve': z.object({ id, value: z.unknown() }),

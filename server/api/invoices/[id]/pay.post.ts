@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto'
 import { and, eq, inArray } from 'drizzle-orm'
-import { idParams } from '#shared/utils/jobs/schemas'
+import { idParams } from '#shared/utils/schemas/records'
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event, rolesFor('invoices', 'pay'))

@@ -1,4 +1,4 @@
-import { idParams, invoiceCreateBody } from '#shared/utils/jobs/schemas'
+import { idParams, invoiceCreateBody } from '#shared/utils/schemas/jobs'
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event, rolesFor('invoices', 'create'))
