@@ -1,12 +1,10 @@
 import { randomUUID } from 'node:crypto'
 import { and, eq, isNull } from 'drizzle-orm'
-import { ENTITY_PREFIX, type EntityTable } from '#shared/utils/sync/entities'
+import { ENTITY_NOUNS, ENTITY_PREFIX, type EntityTable } from '#shared/utils/sync/entities'
 import type { MutationArgs, MutationName } from '#shared/utils/sync/protocol'
 import type { ShopAccess } from './authz'
 import { applyDirect } from './sync/direct'
 import { ENTITY_POLICIES } from './sync/entity-policies'
-
-const LABEL: Record<EntityTable, string> = { customers: 'Customer', amps: 'Amp', jobs: 'Job', jobParts: 'Part', jobLabour: 'Labour line', notes: 'Note', measurements: 'Bench result', procedureGates: 'Safety check', procedureRuns: 'Procedure run' }
 
 /** A record as the REST routes show it: the sync bookkeeping (field stamps) left out. */
 export function publicRow<R extends { fieldStamps?: unknown }>(row: R): Omit<R, 'fieldStamps'> {
@@ -18,7 +16,7 @@ export function publicRow<R extends { fieldStamps?: unknown }>(row: R): Omit<R, 
 export async function findEntity(db: Db | Tx, table: EntityTable, shopId: string, id: string) {
   const t = ENTITY_POLICIES[table].table
   const [row] = await db.select().from(t).where(and(eq(t.id, id), eq(t.shopId, shopId), isNull(t.deletedAt))).limit(1)
-  if (!row) throw createError({ statusCode: 404, message: `${LABEL[table]} not found.` })
+  if (!row) throw createError({ statusCode: 404, message: `${ENTITY_NOUNS[table]} not found.` })
   return row as Record<string, unknown> & { id: string, fieldStamps: unknown }
 }
 

@@ -120,6 +120,12 @@ export const ENTITY_PREFIX = {
 
 type Prefix<T extends EntityTable> = (typeof ENTITY_PREFIX)[T]
 
+/** What a person calls one record of each kind (sync screen, conflicts, "not found" answers). */
+export const ENTITY_NOUNS: Record<EntityTable, string> = {
+  customers: 'Customer', amps: 'Amp', jobs: 'Job', jobParts: 'Part', jobLabour: 'Labour', notes: 'Note',
+  measurements: 'Bench result', procedureGates: 'Safety check', procedureRuns: 'Procedure run',
+}
+
 /** Fields a create may leave out, with their defaults. */
 export const ENTITY_DEFAULTS: { [T in EntityTable]: Partial<EntityFields<T>> } = {
   customers: { email: '', phone: '', notes: '', playerUserId: null },
