@@ -1,7 +1,9 @@
 // How every writer runs: retried on deadlock, the shop's version row locked and bumped once,
 // and work that must wait for the commit (e-mail) run after it.
+// Imports spelled out (not Nitro's auto-imports) so the demo seed, run by tsx, shares the version lock.
 import { eq } from 'drizzle-orm'
-import type { Tx } from './db'
+import { createError } from 'h3'
+import { tables, useDb, type Tx } from './db'
 
 const RETRYABLE = new Set(['ER_LOCK_DEADLOCK', 'ER_LOCK_WAIT_TIMEOUT'])
 const UNAVAILABLE = new Set(['ECONNREFUSED', 'ECONNRESET', 'PROTOCOL_CONNECTION_LOST', 'ETIMEDOUT', 'ER_CON_COUNT_ERROR', 'EPIPE', 'ENOTFOUND', 'ER_SERVER_SHUTDOWN'])
