@@ -1,5 +1,7 @@
 import { randomUUID } from 'node:crypto'
 import { and, eq, isNull } from 'drizzle-orm'
+import type { z } from 'zod'
+import { idParams } from '#shared/utils/schemas/records'
 import { ENTITY_NOUNS, ENTITY_PREFIX, type EntityTable } from '#shared/utils/sync/entities'
 import type { MutationArgs, MutationName } from '#shared/utils/sync/protocol'
 import type { ShopAccess } from './authz'
@@ -42,6 +44,33 @@ export async function deleteEntity(access: Access, table: EntityTable, id: strin
   await run(access, table, 'delete', { id })
   return { id, deleted: true }
 }
+
+// The create, patch and delete routes of a synced record: authorised from PERMISSIONS, then
+// validated, then applied through the sync path. A route file is one line naming its record.
+
+/** POST /api/<records>: 201 with the new record. */
+export const entityCreateRoute = (table: EntityTable, body: z.ZodType<{ id?: string } & Record<string, unknown>>) => defineEventHandler(async (event) => {
+  const access = await requireActiveShopRole(event, rolesFor(table, 'create'))
+  const fields = await validBody(event, body)
+  const created = await createEntity(access, table, fields)
+  setResponseStatus(event, 201)
+  return created
+})
+
+/** PATCH /api/<records>/<id>: the record as it now is. */
+export const entityPatchRoute = (table: EntityTable, body: z.ZodType<Record<string, unknown>>) => defineEventHandler(async (event) => {
+  const access = await requireActiveShopRole(event, rolesFor(table, 'update'))
+  const { id } = await validParams(event, idParams)
+  const fields = await validBody(event, body)
+  return patchEntity(access, table, id, fields)
+})
+
+/** DELETE /api/<records>/<id>. */
+export const entityDeleteRoute = (table: EntityTable) => defineEventHandler(async (event) => {
+  const access = await requireActiveShopRole(event, rolesFor(table, 'remove'))
+  const { id } = await validParams(event, idParams)
+  return deleteEntity(access, table, id)
+})
 
 /** `%` and `_` typed by a person are meant literally. */
 export const likePattern = (q: string) => `%${q.replace(/[\\%_]/g, c => `\\${c}`)}%`

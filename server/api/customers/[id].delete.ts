@@ -1,7 +1,1 @@
-import { idParams } from '#shared/utils/schemas/records'
-
-export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, rolesFor('customers', 'remove'))
-  const { id } = await validParams(event, idParams)
-  return deleteEntity(access, 'customers', id)
-})
+export default entityDeleteRoute('customers')
