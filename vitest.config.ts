@@ -2,8 +2,8 @@ import { fileURLToPath } from 'node:url'
 import { defineConfig } from 'vitest/config'
 import { defineVitestProject } from '@nuxt/test-utils/config'
 
-// The app's own aliases, for the projects that run outside Nuxt (app/utils import `#shared/...`).
-const resolve = { alias: { '#shared': fileURLToPath(new URL('./shared', import.meta.url)) } }
+// The app's own aliases, for the projects that run outside Nuxt (app/utils import `#shared/...` and `~/...`).
+const resolve = { alias: { '#shared': fileURLToPath(new URL('./shared', import.meta.url)), '~': fileURLToPath(new URL('./app', import.meta.url)) } }
 
 export default defineConfig({
   test: {

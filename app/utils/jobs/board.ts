@@ -1,6 +1,6 @@
 // The job board's filtering, sorting and counting: pure, so tests and the table share them.
 import { JOB_STATES, OPEN_JOB_STATES, type JobState } from '#shared/utils/jobs/states'
-import type { EntityRow } from '../sync/local-db'
+import type { EntityRow } from '~/utils/sync/local-db'
 
 export type JobRow = EntityRow<'jobs'>
 /** A job with what the board shows beside it. */

@@ -3,7 +3,7 @@ import Dexie, { type Table } from 'dexie'
 import type { MutationName, SyncedTable } from '#shared/utils/sync/protocol'
 import type { EntityFields, EntityTable } from '#shared/utils/sync/entities'
 import type { JobState } from '#shared/utils/jobs/states'
-import { STORAGE_KEYS } from '../storage-keys'
+import { STORAGE_KEYS } from '~/utils/storage-keys'
 
 export const LOCAL_DB_PREFIX = STORAGE_KEYS.localDbPrefix
 export const localDbName = (userId: string) => `${LOCAL_DB_PREFIX}${userId}`
