@@ -50,7 +50,7 @@ try {
   t = performance.now()
   for (let start = 0; start < INSERTS; start += BATCH) {
     const values = Array.from({ length: BATCH }, (_, k) => [randomUUID(), shopId, userId, `plain ${start + k}`, '{}', 1])
-    await conn.query('insert into notes (id, shop_id, author_id, body, field_stamps, version) values ?', [values])
+    await conn.query('insert into notes (id, shop_id, created_by, body, field_stamps, version) values ?', [values])
   }
   const insertMs = performance.now() - t
   await conn.end()

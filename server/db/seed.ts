@@ -8,6 +8,7 @@ import type { MySqlTransaction } from 'drizzle-orm/mysql-core'
 import * as schema from './schema/index'
 import { invoiceTotals, labourTotalCents, partTotalCents } from '../../shared/utils/jobs/money'
 import { expandSteps, findProcedure } from '../../shared/utils/procedures/index'
+import { bumpShopVersion, lockShopVersion } from '../utils/transactions'
 import { DEMO_AMPS, DEMO_CUSTOMERS, DEMO_INVOICE, DEMO_JOBS, DEMO_LABOUR, DEMO_PARTS, DEMO_RUNS, DEMO_SEED_CLIENT, DEMO_SETTINGS, DEMO_SHOP, DEMO_USERS, demoEventId } from './demo'
 
 const url = process.env.NUXT_DATABASE_URL
@@ -33,9 +34,7 @@ const HOUR = 3_600_000
  * other change.
  */
 async function seedJobs(tx: Tx) {
-  await tx.insert(schema.shopVersions).ignore().values({ shopId: SHOP })
-  const [row] = await tx.select().from(schema.shopVersions).where(eq(schema.shopVersions.shopId, SHOP)).for('update')
-  let version = row?.version ?? 0
+  let version = await lockShopVersion(tx, SHOP)
   const start = version
   const now = Date.now()
   const day = (d: number) => new Date(now - d * 24 * HOUR)
@@ -113,7 +112,7 @@ async function seedJobs(tx: Tx) {
     await tx.insert(schema.invoiceCounters).values({ shopId: SHOP, kind: 'invoice', last: DEMO_INVOICE.number })
       .onDuplicateKeyUpdate({ set: { last: sql`GREATEST(${schema.invoiceCounters.last}, ${DEMO_INVOICE.number})` } })
   }
-  if (version !== start) await tx.update(schema.shopVersions).set({ version }).where(eq(schema.shopVersions.shopId, SHOP))
+  if (version !== start) await bumpShopVersion(tx, SHOP, version)
 }
 
 const pool = createPool({ uri: url, timezone: 'Z', connectionLimit: 2 })

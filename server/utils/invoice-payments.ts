@@ -1,7 +1,5 @@
 import { randomUUID } from 'node:crypto'
 import { and, eq, inArray } from 'drizzle-orm'
-import { runAfterCommit } from './sync/context'
-import { withRetry } from './sync/errors'
 import type { ShopAccess } from './authz'
 
 const refuse = (why: string) => createError({ statusCode: 409, message: why })

@@ -5,24 +5,6 @@ import type { ShopAccess } from './authz'
 
 type InvoiceLine = (typeof tables.invoices.$inferSelect)['lines'][number]
 
-/**
- * Lock the shop's version row (as a sync push does) and hand out the next version; the caller
- * stamps its rows with it and the row is bumped, so the change syncs down in commit order.
- */
-export async function nextShopVersion(tx: Tx, shopId: string): Promise<number> {
-  const lock = () => tx.select({ version: tables.shopVersions.version }).from(tables.shopVersions)
-    .where(eq(tables.shopVersions.shopId, shopId)).for('update')
-  let [row] = await lock()
-  // Insert only when missing: INSERT IGNORE on an existing row takes a shared lock, and two of those deadlock on the upgrade.
-  if (!row) {
-    await tx.insert(tables.shopVersions).ignore().values({ shopId })
-    ;[row] = await lock()
-  }
-  const next = (row?.version ?? 0) + 1
-  await tx.update(tables.shopVersions).set({ version: next }).where(eq(tables.shopVersions.shopId, shopId))
-  return next
-}
-
 /** Lines from the job's current parts and labour, totals at the shop's tax rate, the next number of its kind. */
 export async function createInvoice(access: ShopAccess, jobId: string, kind: 'estimate' | 'invoice') {
   const id = randomUUID()

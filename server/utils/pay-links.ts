@@ -1,7 +1,7 @@
 import { randomBytes, randomUUID } from 'node:crypto'
 import { and, eq, gt, isNull } from 'drizzle-orm'
 import type { H3Event } from 'h3'
-import { payTokenParams } from '#shared/utils/jobs/schemas'
+import { payTokenParams } from '#shared/utils/schemas/jobs'
 
 /** How long an e-mailed pay link opens its invoice. */
 export const PAY_LINK_DAYS = 30

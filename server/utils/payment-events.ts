@@ -1,7 +1,5 @@
 import { and, eq } from 'drizzle-orm'
 import type Stripe from 'stripe'
-import { runAfterCommit } from './sync/context'
-import { withRetry } from './sync/errors'
 
 /**
  * One verified provider event, handled once: the event id is recorded in the same transaction

@@ -3,8 +3,6 @@ import type { LibraryTube } from '#shared/types/tubes'
 import { BUILTIN_LIBRARY } from '#shared/utils/tubes/library'
 import type { TubeRow } from '../db/schema/tubes'
 
-export const TUBE_EDITORS = ['owner', 'tech'] as const
-
 export function libraryTubeFromRow(row: TubeRow): LibraryTube {
   return {
     id: row.id,

@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto'
 import { beforeAll, describe, expect, it } from 'vitest'
+import { SYNC_SCHEMA_VERSION } from '../../shared/utils/sync/protocol'
 import { DEMO, login, newOwner, type Client } from './helpers/client'
 import { sql } from './helpers/db'
 import { waitForMail } from './helpers/mail'
@@ -10,7 +11,7 @@ let desk: Client, tech: Client, dana: Client, owner: Client
 
 /** Sync mutations from a fresh device id, as a phone would send them. */
 async function push(c: Client, shopId: string, mutations: { name: string, args: unknown, baseVersion?: number }[]) {
-  const r = await c.post('/api/sync/push', { clientId: randomUUID(), shopId, schemaVersion: 1, mutations: mutations.map((m, i) => ({ id: i + 1, uuid: randomUUID(), ...m })) })
+  const r = await c.post('/api/sync/push', { clientId: randomUUID(), shopId, schemaVersion: SYNC_SCHEMA_VERSION, mutations: mutations.map((m, i) => ({ id: i + 1, uuid: randomUUID(), ...m })) })
   expect(r.status).toBe(200)
   expect(r.body.results.map((x: { status: string }) => x.status)).toEqual(mutations.map(() => 'applied'))
 }
@@ -121,12 +122,12 @@ describe('estimates and invoices', () => {
     const inv = (await desk.post(`/api/jobs/${job.id}/invoices`, { kind: 'estimate' })).body
     const pull = async (c: Client) => {
       const clientId = randomUUID()
-      const r = await c.post('/api/sync/pull', { clientId, shopId: DEMO.shopId, schemaVersion: 1, cookie: null })
+      const r = await c.post('/api/sync/pull', { clientId, shopId: DEMO.shopId, schemaVersion: SYNC_SCHEMA_VERSION, cookie: null })
       const all = [...r.body.changes]
       let cookie = r.body.cookie
       let more = r.body.more
       while (more) {
-        const next = await c.post('/api/sync/pull', { clientId, shopId: DEMO.shopId, schemaVersion: 1, cookie })
+        const next = await c.post('/api/sync/pull', { clientId, shopId: DEMO.shopId, schemaVersion: SYNC_SCHEMA_VERSION, cookie })
         all.push(...next.body.changes)
         cookie = next.body.cookie
         more = next.body.more

@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto'
 import { beforeAll, describe, expect, it } from 'vitest'
+import { SYNC_SCHEMA_VERSION } from '../../shared/utils/sync/protocol'
 import { DEMO, login, newOwner, type Client } from './helpers/client'
 import { sql } from './helpers/db'
 import { caughtMail, waitForMail } from './helpers/mail'
@@ -25,7 +26,7 @@ describe('"your amp is ready" e-mail', () => {
     const email = `ready-${randomUUID().slice(0, 8)}@test.example`
     const { job } = await jobFor(desk, email)
     const body = {
-      clientId: randomUUID(), shopId: DEMO.shopId, schemaVersion: 1,
+      clientId: randomUUID(), shopId: DEMO.shopId, schemaVersion: SYNC_SCHEMA_VERSION,
       mutations: [
         { id: 1, uuid: randomUUID(), name: 'job.setFields', args: { id: job.id, fields: { status: 'on-bench' } }, baseVersion: job.version },
         { id: 2, uuid: randomUUID(), name: 'job.setFields', args: { id: job.id, fields: { status: 'ready' } }, baseVersion: job.version },
@@ -52,7 +53,7 @@ describe('"your amp is ready" e-mail', () => {
     const { job } = await jobFor(desk, email)
     // checked-in -> ready is not a move the flow allows: rejected, so nothing is queued.
     const refused = await tech.post('/api/sync/push', {
-      clientId: randomUUID(), shopId: DEMO.shopId, schemaVersion: 1,
+      clientId: randomUUID(), shopId: DEMO.shopId, schemaVersion: SYNC_SCHEMA_VERSION,
       mutations: [{ id: 1, uuid: randomUUID(), name: 'job.setFields', args: { id: job.id, fields: { status: 'ready' } }, baseVersion: job.version }],
     })
     expect(refused.body.results[0].status).toBe('rejected')

@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto'
 import { beforeAll, describe, expect, it } from 'vitest'
+import { SYNC_SCHEMA_VERSION } from '../../shared/utils/sync/protocol'
 import { client, DEMO, login, newOwner, type Client } from './helpers/client'
 import { sql } from './helpers/db'
 
@@ -60,7 +61,7 @@ describe('jobs over REST', () => {
     const { job } = await checkIn()
     await desk.patch(`/api/jobs/${job.id}`, { complaint: 'Changed at the desk' })
     const body = {
-      clientId: randomUUID(), shopId: DEMO.shopId, schemaVersion: 1,
+      clientId: randomUUID(), shopId: DEMO.shopId, schemaVersion: SYNC_SCHEMA_VERSION,
       mutations: [{ id: 1, uuid: randomUUID(), name: 'job.setFields', args: { id: job.id, fields: { complaint: 'Changed on a phone' } }, baseVersion: job.version }],
     }
     const r = await tech.post('/api/sync/push', body)

@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto'
 import { beforeAll, describe, expect, it } from 'vitest'
+import { SYNC_SCHEMA_VERSION } from '../../shared/utils/sync/protocol'
 import { DEMO, login, type Client } from './helpers/client'
 
 let desk: Client, tech: Client, dana: Client, owner: Client
@@ -15,7 +16,7 @@ describe('a job\'s totals', () => {
     const job = (await desk.post('/api/jobs', { customerId: danaCustomer.id, ampId: amp.id, complaint: 'Totals check' })).body
     const shopId = DEMO.shopId
     const r = await tech.post('/api/sync/push', {
-      clientId: randomUUID(), shopId, schemaVersion: 1,
+      clientId: randomUUID(), shopId, schemaVersion: SYNC_SCHEMA_VERSION,
       mutations: [
         { id: 1, uuid: randomUUID(), name: 'jobPart.create', args: { id: randomUUID(), jobId: job.id, description: 'Matched pair 6V6GT', quantity: 1, unitPriceCents: 8950 } },
         { id: 2, uuid: randomUUID(), name: 'jobLabour.create', args: { id: randomUUID(), jobId: job.id, description: 'Set bias', minutes: 60, rateCents: 9000 } },

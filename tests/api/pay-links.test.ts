@@ -1,4 +1,5 @@
 import { createHash, randomBytes, randomUUID } from 'node:crypto'
+import { SYNC_SCHEMA_VERSION } from '../../shared/utils/sync/protocol'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { client, DEMO, login, newOwner, type Client } from './helpers/client'
 import { sql } from './helpers/db'
@@ -18,7 +19,7 @@ async function walkInInvoice(minutes = 60) {
   const amp = (await desk.post('/api/amps', { customerId: customer.id, description: 'two-6V6 combo, fixed bias', serial: `WLK-${randomUUID().slice(0, 6)}` })).body
   const job = (await desk.post('/api/jobs', { customerId: customer.id, ampId: amp.id, complaint: 'Hums' })).body
   const r = await owner.post('/api/sync/push', {
-    clientId: randomUUID(), shopId: DEMO.shopId, schemaVersion: 1,
+    clientId: randomUUID(), shopId: DEMO.shopId, schemaVersion: SYNC_SCHEMA_VERSION,
     mutations: [{ id: 1, uuid: randomUUID(), name: 'jobLabour.create', args: { id: randomUUID(), jobId: job.id, minutes, rateCents: 9000, description: 'Bias and clean' } }],
   })
   expect(r.body.results[0].status).toBe('applied')
@@ -164,7 +165,7 @@ describe('shop settings', () => {
     const amp = (await shop.c.post('/api/amps', { customerId: customer.id, description: '18 W two-EL84 combo, cathode biased' })).body
     const job = (await shop.c.post('/api/jobs', { customerId: customer.id, ampId: amp.id, complaint: 'Crackles' })).body
     await shop.c.post('/api/sync/push', {
-      clientId: randomUUID(), shopId: shop.shopId, schemaVersion: 1,
+      clientId: randomUUID(), shopId: shop.shopId, schemaVersion: SYNC_SCHEMA_VERSION,
       mutations: [{ id: 1, uuid: randomUUID(), name: 'jobLabour.create', args: { id: randomUUID(), jobId: job.id, minutes: 30, rateCents: 8000 } }],
     })
     const inv = (await shop.c.post(`/api/jobs/${job.id}/invoices`, { kind: 'invoice' })).body

@@ -1,5 +1,6 @@
 import { createHmac, randomUUID } from 'node:crypto'
 import { beforeAll, describe, expect, it } from 'vitest'
+import { SYNC_SCHEMA_VERSION } from '../../shared/utils/sync/protocol'
 import { BASE, client, DEMO, login, newOwner, type Client } from './helpers/client'
 import { sql } from './helpers/db'
 import { caughtMail, waitForMail } from './helpers/mail'
@@ -21,7 +22,7 @@ async function sentInvoiceForDana(minutes: number) {
   const amp = (await desk.post('/api/amps', { customerId: danaCustomer.id, description: '18 W two-EL84 combo, cathode biased', serial: `PAY-${randomUUID().slice(0, 6)}` })).body
   const job = (await desk.post('/api/jobs', { customerId: danaCustomer.id, ampId: amp.id, complaint: 'Set the bias' })).body
   const r = await owner.post('/api/sync/push', {
-    clientId: randomUUID(), shopId: DEMO.shopId, schemaVersion: 1,
+    clientId: randomUUID(), shopId: DEMO.shopId, schemaVersion: SYNC_SCHEMA_VERSION,
     mutations: [{ id: 1, uuid: randomUUID(), name: 'jobLabour.create', args: { id: randomUUID(), jobId: job.id, minutes, rateCents: 9000 } }],
   })
   expect(r.body.results[0].status).toBe('applied')

@@ -86,7 +86,7 @@ describe('sync push', () => {
     const id = randomUUID()
     const r = await push(tech, DEMO.shopId, clientId, [{ id: 1, uuid: randomUUID(), name: 'measurement.create', args: { id, tool: 'idle-dissipation', inputs, outputs, engineVersion: ENGINE_VERSION } }])
     expect(r.body.results[0].status).toBe('applied')
-    const [row] = await sql<{ tool: string, author_id: string }>('select tool, author_id from measurements where id = ?', [id])
+    const [row] = await sql<{ tool: string, created_by: string }>('select tool, created_by from measurements where id = ?', [id])
     expect(row!.tool).toBe('idle-dissipation')
   })
 

@@ -1,6 +1,7 @@
 import { existsSync, readdirSync, readFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { randomUUID } from 'node:crypto'
+import { SYNC_SCHEMA_VERSION } from '../../shared/utils/sync/protocol'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { APIRequestContext, Browser, Page } from 'playwright-core'
 import { apiLogin, BASE, hydrated, launch, phone } from './helpers/browser'
@@ -108,7 +109,7 @@ describe('the shop\'s day at 360 x 800', () => {
 
     const desk = await as('desk@larkspur.example', '/jobs')
     const { job, post } = await walkInJob(desk.request, `cash-${randomUUID().slice(0, 8)}@test.example`)
-    const push = await owner.request.post(`${BASE}/api/sync/push`, { data: { clientId: randomUUID(), shopId: SHOP_ID, schemaVersion: 1, mutations: [{ id: 1, uuid: randomUUID(), name: 'jobLabour.create', args: { id: randomUUID(), jobId: job.id, minutes: 60, rateCents: 9000, description: 'Retube and bias' } }] } })
+    const push = await owner.request.post(`${BASE}/api/sync/push`, { data: { clientId: randomUUID(), shopId: SHOP_ID, schemaVersion: SYNC_SCHEMA_VERSION, mutations: [{ id: 1, uuid: randomUUID(), name: 'jobLabour.create', args: { id: randomUUID(), jobId: job.id, minutes: 60, rateCents: 9000, description: 'Retube and bias' } }] } })
     expect(push.ok()).toBe(true)
     await post(`/api/jobs/${job.id}/invoices`, { kind: 'invoice' })
     await desk.goto(`${BASE}/jobs/${job.id}`)
@@ -132,7 +133,7 @@ describe('the shop\'s day at 360 x 800', () => {
     const desk = await as('desk@larkspur.example', '/jobs')
     const { job, post } = await walkInJob(desk.request, email)
     const owner = await as('owner@larkspur.example', '/')
-    await owner.request.post(`${BASE}/api/sync/push`, { data: { clientId: randomUUID(), shopId: SHOP_ID, schemaVersion: 1, mutations: [{ id: 1, uuid: randomUUID(), name: 'jobLabour.create', args: { id: randomUUID(), jobId: job.id, minutes: 30, rateCents: 9000, description: 'Clean the input jack' } }] } })
+    await owner.request.post(`${BASE}/api/sync/push`, { data: { clientId: randomUUID(), shopId: SHOP_ID, schemaVersion: SYNC_SCHEMA_VERSION, mutations: [{ id: 1, uuid: randomUUID(), name: 'jobLabour.create', args: { id: randomUUID(), jobId: job.id, minutes: 30, rateCents: 9000, description: 'Clean the input jack' } }] } })
     await post(`/api/jobs/${job.id}/invoices`, { kind: 'invoice' })
     // The desk sends it from the job page; the e-mail carries the pay link.
     await desk.goto(`${BASE}/jobs/${job.id}`)

@@ -38,7 +38,7 @@ describe('measurements store (offline, on the device)', () => {
     expect(store.all.map(m => m.id)).toEqual([second, first])
     expect(store.inNotebook.map(m => m.id)).toEqual([first])
     expect(store.forJob(jobId).map(m => m.id)).toEqual([second])
-    expect(store.all.every(m => m.authorId === user.id && m.pending === 1 && m.version === 0)).toBe(true)
+    expect(store.all.every(m => m.createdBy === user.id && m.pending === 1 && m.version === 0)).toBe(true)
 
     // Source: as above, 12 W is 40 % of 30 W: below the fixed-bias 'in range' start of 50 % (common practice, no source) → cold.
     expect(summarize('idle-dissipation', store.inNotebook[0]!.outputs)).toEqual({ headline: '12 W · 40 % of rating', band: 'cold' })

@@ -34,13 +34,15 @@ describe('notes store', () => {
     server.mode = 'up'
     server.version = 7
     const at = new Date().toISOString()
-    const authorId = notes.byId(a)!.authorId
+    const authorId = notes.byId(a)!.createdBy
     server.rows.push(
-      { table: 'notes', id: b, version: 6, deleted: false, data: { jobId: null, title: '', body: 'Order 470 kΩ grid resistors.', authorId, createdAt: at, updatedAt: at } },
-      { table: 'notes', id: a, version: 7, deleted: false, data: { jobId: null, title: '100 W four-6L6 head', body: 'Bias drifts warm after 20 min.', authorId, createdAt: at, updatedAt: at } },
+      { table: 'notes', id: b, version: 6, deleted: false, data: { jobId: null, title: '', body: 'Order 470 kΩ grid resistors.', createdBy: authorId, createdAt: at, updatedAt: at } },
+      { table: 'notes', id: a, version: 7, deleted: false, data: { jobId: null, title: '100 W four-6L6 head', body: 'Bias drifts warm after 20 min.', createdBy: authorId, createdAt: at, updatedAt: at } },
     )
     sync.syncNow()
     await until(() => notes.byId(a)?.version === 7, 'the server version')
+    // The server names the author createdBy; the notebook reads it as the note's author.
+    expect(notes.byId(b)?.createdBy).toBe(authorId)
     server.mode = 'down'
     expect(await notes.edit(a, { title: '100 W four-6L6 head', body: 'Bias drifts warm after 20 min. Screen resistors replaced.' })).toBe(true)
     expect(await notes.edit(a, { title: '100 W four-6L6 head', body: 'Bias drifts warm after 20 min. Screen resistors replaced.' })).toBe(false)
@@ -71,7 +73,7 @@ describe('notes store', () => {
     const common = { tableName: 'notes', rowId: id, serverAuthor: crypto.randomUUID(), clientAuthor: user.id, serverChangedAt: at, clientChangedAt: at, status: 'open', note: null }
     server.version = 3
     server.rows.push(
-      { table: 'notes', id, version: 3, deleted: true, data: { jobId: null, title: '', body: 'Old text', authorId: user.id, createdAt: at, updatedAt: at } },
+      { table: 'notes', id, version: 3, deleted: true, data: { jobId: null, title: '', body: 'Old text', createdBy: user.id, createdAt: at, updatedAt: at } },
       { table: 'conflicts', id: c1, version: 3, deleted: false, data: { ...common, field: 'body', serverValue: null, clientValue: 'Edited while deleted' } },
       { table: 'conflicts', id: c2, version: 3, deleted: false, data: { ...common, field: 'title', serverValue: 'Left', clientValue: 'Right' } },
     )

@@ -33,7 +33,7 @@ describe('AppSyncChip over the real sync store', () => {
 
     // The push is applied and the pull brings the note back as the server's row.
     server.version = 1
-    server.rows.push({ table: 'notes', id, version: 1, deleted: false, data: { jobId: null, title: 'Two-6V6 combo', body: 'Hum at idle, check the filter caps.', authorId: user.id, createdAt: new Date().toISOString(), updatedAt: new Date().toISOString() } })
+    server.rows.push({ table: 'notes', id, version: 1, deleted: false, data: { jobId: null, title: 'Two-6V6 combo', body: 'Hum at idle, check the filter caps.', createdBy: user.id, createdAt: new Date().toISOString(), updatedAt: new Date().toISOString() } })
     server.mode = 'up'
     server.release()
     await until(() => state().attributes('data-state') === 'synced', 'synced')

@@ -1,6 +1,6 @@
 // The job board's filtering, sorting and counting: pure, so tests and the table share them.
-import { JOB_STATES, OPEN_JOB_STATES, type JobState } from '../../../shared/utils/jobs/states'
-import type { JobRecord } from '../../../shared/types/records'
+import { JOB_STATES, OPEN_JOB_STATES, type JobState } from '#shared/utils/jobs/states'
+import type { JobRecord } from '#shared/types/records'
 
 export type JobRow = JobRecord
 /** A job with what the board shows beside it. */

@@ -1,6 +1,6 @@
 // The check-in form's validation: the same zod schemas the server applies, with the message beside each field.
 import type { z } from 'zod'
-import { ENTITY_DEFAULTS, ENTITY_FIELDS, type EntityFields, type EntityTable } from '../../../shared/utils/sync/entities'
+import { ENTITY_DEFAULTS, ENTITY_FIELDS, type EntityFields, type EntityTable } from '#shared/utils/sync/entities'
 
 export type FieldErrors = Record<string, string>
 

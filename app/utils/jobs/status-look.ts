@@ -1,5 +1,5 @@
 // Each job state has its own word, colour and outline, so it reads without colour too.
-import type { JobState } from '../../../shared/utils/jobs/states'
+import type { JobState } from '#shared/utils/jobs/states'
 
 export interface StatusLook { tone: string, shape: string }
 

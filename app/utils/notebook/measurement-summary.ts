@@ -1,5 +1,5 @@
 // How a saved bench result reads in a list: the tool's name and its key result, with units.
-import type { BenchToolId, IdleBand } from '../../../shared/utils/bench'
+import type { BenchToolId, IdleBand } from '#shared/utils/bench'
 
 export const TOOL_NAMES: Record<BenchToolId, string> = {
   'idle-dissipation': 'Idle dissipation',

@@ -1,9 +1,9 @@
 // The on-device database: one per signed-in user. Plain Dexie, no Vue, so tests run it in node.
 import Dexie, { type Table } from 'dexie'
-import type { MutationName, SyncedTable } from '../../../shared/utils/sync/protocol'
-import type { EntityFields, EntityTable } from '../../../shared/utils/sync/entities'
-import type { JobState } from '../../../shared/utils/jobs/states'
-import { STORAGE_KEYS } from '../storage-keys'
+import type { MutationName, SyncedTable } from '#shared/utils/sync/protocol'
+import type { EntityFields, EntityTable } from '#shared/utils/sync/entities'
+import type { JobState } from '#shared/utils/jobs/states'
+import { STORAGE_KEYS } from '~/utils/storage-keys'
 
 export const LOCAL_DB_PREFIX = STORAGE_KEYS.localDbPrefix
 export const localDbName = (userId: string) => `${LOCAL_DB_PREFIX}${userId}`
@@ -54,28 +54,6 @@ interface ViewBase {
   pending: number
 }
 
-export interface NoteRow extends ViewBase {
-  jobId: string | null
-  title: string
-  body: string
-  visibility: 'internal' | 'customer'
-  authorId: string
-  createdAt: string
-  updatedAt: string
-}
-
-export interface MeasurementRow extends ViewBase {
-  jobId: string | null
-  rigId: string | null
-  tool: string
-  inputs: Record<string, unknown>
-  outputs: Record<string, unknown>
-  engineVersion: string
-  label: string | null
-  authorId: string
-  createdAt: string
-}
-
 export interface ConflictRow extends ViewBase {
   tableName: SyncedTable
   rowId: string
@@ -90,13 +68,16 @@ export interface ConflictRow extends ViewBase {
   note: string | null
 }
 
-/** A field-versioned record (customer, amp, job, part, labour) as this device sees it. */
+/** A synced record (customer, amp, job, part, labour, note, bench result, procedure check or run) as this device sees it. */
 export type EntityRow<T extends EntityTable> = ViewBase & EntityFields<T> & {
   createdBy: string
   updatedBy: string | null
   createdAt: string
   updatedAt: string
 }
+
+export type NoteRow = EntityRow<'notes'>
+export type MeasurementRow = EntityRow<'measurements'>
 
 export interface JobEventRow extends ViewBase {
   jobId: string

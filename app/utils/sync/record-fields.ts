@@ -1,7 +1,8 @@
 // How each synced record and field reads on screen: its name, and its values as the app shows them.
-import { JOB_STATE_LABELS, type JobState } from '../../../shared/utils/jobs/states'
-import { formatMoney } from '../../../shared/utils/jobs/money'
-import { findProcedure } from '../../../shared/utils/procedures/index'
+import { JOB_STATE_LABELS, type JobState } from '#shared/utils/jobs/states'
+import { formatMoney } from '#shared/utils/jobs/money'
+import { findProcedure } from '#shared/utils/procedures/index'
+import { ENTITY_NOUNS } from '#shared/utils/sync/entities'
 
 /** text: free text a person may merge; the rest are picked, never typed. */
 export type FieldKind = 'text' | 'longtext' | 'enum' | 'money' | 'number' | 'minutes' | 'date' | 'person' | 'record' | 'other'
@@ -11,10 +12,7 @@ interface FieldInfo { label: string, kind: FieldKind, options?: Record<string, s
 const PRIORITY_LABELS = { low: 'Low', normal: 'Normal', rush: 'Rush' }
 const RUN_STATUS_LABELS = { running: 'Running', done: 'Done', stopped: 'Stopped' }
 
-export const RECORD_NOUNS: Record<string, string> = {
-  notes: 'Note', customers: 'Customer', amps: 'Amp', jobs: 'Job', jobParts: 'Part',
-  jobLabour: 'Labour', procedureGates: 'Safety check', procedureRuns: 'Procedure run',
-}
+export const RECORD_NOUNS: Record<string, string> = ENTITY_NOUNS
 
 const FIELDS: Record<string, Record<string, FieldInfo>> = {
   notes: {

@@ -1,25 +1,19 @@
 // How a pending change looks on this device before the server confirms it, and how a
 // server row becomes a view row. Pure functions, replayed on top of server rows (rebase).
-import type { SyncedTable } from '../../../shared/utils/sync/protocol'
-import type { ConflictRow, EntityRow, InvoiceRow, JobEventRow, MeasurementRow, NoteRow, OutboxRow, ServerRow } from './local-db'
-import { ENTITY_DEFAULTS, entityOf, type EntityTable } from '../../../shared/utils/sync/entities'
+import type { SyncedTable } from '#shared/utils/sync/protocol'
+import type { ConflictRow, EntityRow, InvoiceRow, JobEventRow, OutboxRow, ServerRow } from './local-db'
+import { ENTITY_DEFAULTS, entityOf, type EntityTable } from '#shared/utils/sync/entities'
 
-export type ViewRow = NoteRow | MeasurementRow | ConflictRow | EntityRow<EntityTable> | JobEventRow | InvoiceRow
+export type ViewRow = ConflictRow | EntityRow<EntityTable> | JobEventRow | InvoiceRow
 export const key = (table: SyncedTable, id: string) => `${table}:${id}`
 
 export function serverToView(s: ServerRow): ViewRow {
   // eslint-disable-next-line @typescript-eslint/no-explicit-any -- server rows are checked by the protocol
   const d = (s.data ?? {}) as Record<string, any>
   const base = { id: s.id, shopId: s.shopId, version: s.version, deleted: s.deleted, pending: 0 }
-  if (s.table === 'notes') {
-    return { ...base, jobId: d.jobId ?? null, title: d.title ?? '', body: d.body ?? '', visibility: d.visibility ?? 'internal', authorId: d.authorId, createdAt: d.createdAt, updatedAt: d.updatedAt } satisfies NoteRow
-  }
-  if (s.table !== 'conflicts' && s.table !== 'measurements') {
+  if (s.table !== 'conflicts') {
     const { fieldVersions: _fv, deletedAt: _d, ...rest } = d
     return { ...rest, ...base } as ViewRow
-  }
-  if (s.table === 'measurements') {
-    return { ...base, jobId: d.jobId ?? null, rigId: d.rigId ?? null, tool: d.tool, inputs: d.inputs, outputs: d.outputs, engineVersion: d.engineVersion, label: d.label ?? null, authorId: d.authorId, createdAt: d.createdAt } satisfies MeasurementRow
   }
   return {
     ...base, tableName: d.tableName, rowId: d.rowId, field: d.field, serverValue: d.serverValue, clientValue: d.clientValue,
@@ -43,32 +37,12 @@ export function reduce(table: SyncedTable, row: ViewRow | undefined, m: OutboxRo
   const bump = <T extends ViewRow>(r: T, patch: Partial<T>): T => ({ ...r, ...patch, pending: r.pending + 1 })
   const entity = entityOf(m.name)
   if (entity) return reduceEntity(entity.table, entity.verb, row, a, at, ctx)
-  switch (m.name) {
-    case 'note.create':
-      if (row) return bump(row as NoteRow, {})
-      return { id: a.id, shopId: ctx.shopId, version: 0, deleted: false, pending: 1, jobId: a.jobId ?? null, title: a.title ?? '', body: a.body, visibility: a.visibility ?? 'internal', authorId: ctx.userId, createdAt: at, updatedAt: at } satisfies NoteRow
-    case 'note.setFields': {
-      if (!row) return row
-      const fields = Object.fromEntries(Object.entries(a.fields ?? {}).filter(([, v]) => v !== undefined))
-      return bump(row as NoteRow, { ...fields, updatedAt: at })
-    }
-    case 'note.delete':
-    case 'measurement.delete':
-      return row ? bump(row, { deleted: true }) : row
-    case 'note.restore':
-      return row ? bump(row, { deleted: false }) : row
-    case 'measurement.create':
-      if (row) return bump(row as MeasurementRow, {})
-      return { id: a.id, shopId: ctx.shopId, version: 0, deleted: false, pending: 1, jobId: a.jobId ?? null, rigId: a.rigId ?? null, tool: a.tool, inputs: a.inputs, outputs: a.outputs, engineVersion: a.engineVersion, label: a.label ?? null, authorId: ctx.userId, createdAt: at } satisfies MeasurementRow
-    case 'conflict.resolve': {
-      if (table === 'conflicts') return row ? bump(row as ConflictRow, { status: 'resolved' }) : row
-      const c = ctx.conflict
-      if (!row || !c) return row
-      if (c.field === '_delete') return bump(row, { deleted: a.value === true })
-      return bump(row as NoteRow, { [c.field]: a.value, deleted: false } as Partial<NoteRow>)
-    }
-  }
-  return row
+  if (m.name !== 'conflict.resolve') return row
+  if (table === 'conflicts') return row ? bump(row as ConflictRow, { status: 'resolved' }) : row
+  const c = ctx.conflict
+  if (!row || !c) return row
+  if (c.field === '_delete') return bump(row, { deleted: a.value === true })
+  return bump(row, { [c.field]: a.value, deleted: false } as Partial<ViewRow>)
 }
 
 /** The records a change touches, as `table:id` keys. */
@@ -76,8 +50,6 @@ export function targetsOf(m: Pick<OutboxRow, 'name' | 'args'>, conflict?: Confli
   const id = String((m.args as { id: string }).id)
   const entity = entityOf(m.name)
   if (entity) return [key(entity.table, id)]
-  if (m.name.startsWith('note.')) return [key('notes', id)]
-  if (m.name.startsWith('measurement.')) return [key('measurements', id)]
   return conflict ? [key('conflicts', id), key(conflict.tableName, conflict.rowId)] : [key('conflicts', id)]
 }
 

@@ -1,6 +1,6 @@
 // What the person sees about sync: four states, each with its own word and shape.
-import type { MutationName } from '../../../shared/utils/sync/protocol'
-import { entityOf, type EntityTable } from '../../../shared/utils/sync/entities'
+import type { MutationName } from '#shared/utils/sync/protocol'
+import { ENTITY_NOUNS, entityOf } from '#shared/utils/sync/entities'
 
 export type SyncState = 'local' | 'sending' | 'synced' | 'conflict'
 export type ItemSyncState = Exclude<SyncState, 'sending'>
@@ -34,7 +34,6 @@ export function itemSyncState(row: { id: string, version: number, pending: numbe
   return 'synced'
 }
 
-const ENTITY_WORDS: Record<EntityTable, string> = { customers: 'Customer', amps: 'Amp', jobs: 'Job', jobParts: 'Part', jobLabour: 'Labour', procedureGates: 'Safety check', procedureRuns: 'Procedure run' }
 const VERB_WORDS = { create: 'added', setFields: 'edited', delete: 'deleted', restore: 'restored' } as const
 
 const CHANGE_NAMES: Partial<Record<MutationName, string>> = {
@@ -44,13 +43,14 @@ const CHANGE_NAMES: Partial<Record<MutationName, string>> = {
   'note.restore': 'Note restored',
   'measurement.create': 'Bench result saved',
   'measurement.delete': 'Bench result deleted',
+  'measurement.restore': 'Bench result restored',
   'conflict.resolve': 'Decision on a conflict',
 }
 
 /** A short human line for a queued or refused change. */
 export function describeChange(name: MutationName, args: Record<string, unknown>): string {
   const entity = entityOf(name)
-  const base = CHANGE_NAMES[name] ?? (entity ? `${ENTITY_WORDS[entity.table]} ${VERB_WORDS[entity.verb]}` : name)
+  const base = CHANGE_NAMES[name] ?? (entity ? `${ENTITY_NOUNS[entity.table]} ${VERB_WORDS[entity.verb]}` : name)
   const fields = args.fields as { title?: string, body?: string } | undefined
   const text = String(args.title || args.body || fields?.title || fields?.body || '').trim()
   if (!text) return base

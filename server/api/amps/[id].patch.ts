@@ -1,8 +1,3 @@
-import { ampPatchBody, idParams } from '#shared/utils/jobs/schemas'
+import { ampPatchBody } from '#shared/utils/schemas/jobs'
 
-export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'desk', 'tech'])
-  const { id } = await validParams(event, idParams)
-  const fields = await validBody(event, ampPatchBody)
-  return patchEntity(access, 'amps', id, fields)
-})
+export default entityPatchRoute('amps', ampPatchBody)

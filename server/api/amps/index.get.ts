@@ -1,11 +1,11 @@
 import { and, asc, count, eq, isNull, like } from 'drizzle-orm'
 import { z } from 'zod'
-import { searchQuery } from '#shared/utils/jobs/schemas'
+import { searchQuery } from '#shared/utils/schemas/jobs'
 
 const ampQuery = searchQuery.extend({ customer: z.uuid({ message: 'must be an id' }).optional() })
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, STAFF_ROLES)
+  const access = await requireActiveShopRole(event, rolesFor('amps', 'read'))
   const query = await validQuery(event, ampQuery)
   const a = tables.amps
   const where = and(eq(a.shopId, access.shopId), isNull(a.deletedAt),

@@ -1,9 +1,3 @@
-import { ampCreateBody } from '#shared/utils/jobs/schemas'
+import { ampCreateBody } from '#shared/utils/schemas/jobs'
 
-export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'desk', 'tech'])
-  const body = await validBody(event, ampCreateBody)
-  const amp = await createEntity(access, 'amps', body)
-  setResponseStatus(event, 201)
-  return amp
-})
+export default entityCreateRoute('amps', ampCreateBody)

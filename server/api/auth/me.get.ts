@@ -1,5 +1,3 @@
-import { withRetry } from '../../utils/sync/errors'
-
 export default defineEventHandler(async (event) => {
   const session = await requireUserSession(event, { message: 'Sign in first.' })
   const me = await withRetry(() => loadMe(session.user.id, session.activeShopId))

@@ -1,8 +1,3 @@
-import { customerPatchBody, idParams } from '#shared/utils/jobs/schemas'
+import { customerPatchBody } from '#shared/utils/schemas/jobs'
 
-export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'desk'])
-  const { id } = await validParams(event, idParams)
-  const fields = await validBody(event, customerPatchBody)
-  return patchEntity(access, 'customers', id, fields)
-})
+export default entityPatchRoute('customers', customerPatchBody)

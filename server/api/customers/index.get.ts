@@ -1,8 +1,8 @@
 import { and, asc, count, eq, isNull, like, or } from 'drizzle-orm'
-import { searchQuery } from '#shared/utils/jobs/schemas'
+import { searchQuery } from '#shared/utils/schemas/jobs'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, STAFF_ROLES)
+  const access = await requireActiveShopRole(event, rolesFor('customers', 'read'))
   const query = await validQuery(event, searchQuery)
   const c = tables.customers
   const where = and(eq(c.shopId, access.shopId), isNull(c.deletedAt),

@@ -1,9 +1,3 @@
-import { customerCreateBody } from '#shared/utils/jobs/schemas'
+import { customerCreateBody } from '#shared/utils/schemas/jobs'
 
-export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'desk'])
-  const body = await validBody(event, customerCreateBody)
-  const customer = await createEntity(access, 'customers', body)
-  setResponseStatus(event, 201)
-  return customer
-})
+export default entityCreateRoute('customers', customerCreateBody)

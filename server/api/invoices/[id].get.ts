@@ -1,5 +1,5 @@
 import { asc, eq } from 'drizzle-orm'
-import { idParams } from '#shared/utils/jobs/schemas'
+import { idParams } from '#shared/utils/schemas/records'
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event)

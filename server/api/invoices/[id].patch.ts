@@ -1,10 +1,8 @@
 import { eq } from 'drizzle-orm'
-import { idParams, INVOICE_MOVES, invoicePatchBody } from '#shared/utils/jobs/schemas'
-import { runAfterCommit } from '../../utils/sync/context'
-import { withRetry } from '../../utils/sync/errors'
+import { idParams, INVOICE_MOVES, invoicePatchBody } from '#shared/utils/schemas/jobs'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'desk'])
+  const access = await requireActiveShopRole(event, rolesFor('invoices', 'update'))
   const { id } = await validParams(event, idParams)
   const { state } = await validBody(event, invoicePatchBody)
   const db = useDb()

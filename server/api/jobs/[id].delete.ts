@@ -1,7 +1,1 @@
-import { idParams } from '#shared/utils/jobs/schemas'
-
-export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner'])
-  const { id } = await validParams(event, idParams)
-  return deleteEntity(access, 'jobs', id)
-})
+export default entityDeleteRoute('jobs')

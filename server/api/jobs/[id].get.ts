@@ -1,6 +1,6 @@
 import { and, asc, desc, eq, isNull, ne } from 'drizzle-orm'
 import type { AnyMySqlColumn } from 'drizzle-orm/mysql-core'
-import { idParams } from '#shared/utils/jobs/schemas'
+import { idParams } from '#shared/utils/schemas/records'
 import { invoiceTotals } from '#shared/utils/jobs/money'
 
 export default defineEventHandler(async (event) => {
@@ -31,7 +31,7 @@ export default defineEventHandler(async (event) => {
     labour: labour.map(publicRow),
     events,
     notes: notes.map(publicRow),
-    measurements,
+    measurements: measurements.map(publicRow),
     invoices,
     // The same rule and settings an invoice made now would use, for every role that sees the job.
     totals: { ...invoiceTotals(parts, labour, settings.taxRateBasisPoints), taxRateBasisPoints: settings.taxRateBasisPoints, currency: settings.currency },

@@ -1,8 +1,3 @@
-import { idParams, jobPatchBody } from '#shared/utils/jobs/schemas'
+import { jobPatchBody } from '#shared/utils/schemas/jobs'
 
-export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'desk', 'tech'])
-  const { id } = await validParams(event, idParams)
-  const fields = await validBody(event, jobPatchBody)
-  return patchEntity(access, 'jobs', id, fields)
-})
+export default entityPatchRoute('jobs', jobPatchBody)

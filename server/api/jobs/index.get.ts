@@ -1,5 +1,5 @@
 import { and, asc, count, desc, eq, inArray, isNull, like, or, type SQL } from 'drizzle-orm'
-import { jobListQuery } from '#shared/utils/jobs/schemas'
+import { jobListQuery } from '#shared/utils/schemas/jobs'
 import type { JobState } from '#shared/utils/jobs/states'
 
 export default defineEventHandler(async (event) => {

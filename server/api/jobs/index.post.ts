@@ -1,9 +1,3 @@
-import { jobCreateBody } from '#shared/utils/jobs/schemas'
+import { jobCreateBody } from '#shared/utils/schemas/jobs'
 
-export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'desk'])
-  const body = await validBody(event, jobCreateBody)
-  const job = await createEntity(access, 'jobs', body)
-  setResponseStatus(event, 201)
-  return job
-})
+export default entityCreateRoute('jobs', jobCreateBody)

@@ -1,9 +1,3 @@
-import { gateCreateBody } from '#shared/utils/procedures/schemas'
+import { gateCreateBody } from '#shared/utils/schemas/procedures'
 
-export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'tech', 'player'])
-  const body = await validBody(event, gateCreateBody)
-  const gate = await createEntity(access, 'procedureGates', body)
-  setResponseStatus(event, 201)
-  return gate
-})
+export default entityCreateRoute('procedureGates', gateCreateBody)

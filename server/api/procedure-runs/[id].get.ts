@@ -1,4 +1,4 @@
-import { idParams } from '#shared/utils/jobs/schemas'
+import { idParams } from '#shared/utils/schemas/records'
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event)

@@ -1,8 +1,8 @@
-import { idParams } from '#shared/utils/jobs/schemas'
-import { runPatchBody } from '#shared/utils/procedures/schemas'
+import { idParams } from '#shared/utils/schemas/records'
+import { runPatchBody } from '#shared/utils/schemas/procedures'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'tech', 'player'])
+  const access = await requireActiveShopRole(event, rolesFor('procedureRuns', 'update'))
   const { id } = await validParams(event, idParams)
   const fields = await validBody(event, runPatchBody)
   await findRun(access, id)

@@ -1,4 +1,4 @@
-import { runListQuery } from '#shared/utils/procedures/schemas'
+import { runListQuery } from '#shared/utils/schemas/procedures'
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event)

@@ -1,8 +1,8 @@
-import { runCreateBody } from '#shared/utils/procedures/schemas'
+import { runCreateBody } from '#shared/utils/schemas/procedures'
 
 // The run's own safety check must already be in (POST /api/procedure-gates); otherwise 400.
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'tech', 'player'])
+  const access = await requireActiveShopRole(event, rolesFor('procedureRuns', 'create'))
   const body = await validBody(event, runCreateBody)
   const run = await createEntity(access, 'procedureRuns', body)
   setResponseStatus(event, 201)

@@ -1,8 +1,8 @@
 import { eq } from 'drizzle-orm'
-import { settingsPatchBody } from '#shared/utils/jobs/schemas'
+import { settingsPatchBody } from '#shared/utils/schemas/jobs'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner'])
+  const access = await requireActiveShopRole(event, rolesFor('shopSettings', 'update'))
   const { name, ...patch } = await validBody(event, settingsPatchBody)
   const db = useDb()
   await db.transaction(async (tx) => {

@@ -1,5 +1,4 @@
 import { pullBodySchema } from '#shared/utils/sync/protocol'
-import { withRetry } from '../../utils/sync/errors'
 import { handlePull } from '../../utils/sync/pull'
 
 export default defineEventHandler(async (event) => {

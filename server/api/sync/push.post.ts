@@ -1,5 +1,4 @@
 import { pushBodySchema } from '#shared/utils/sync/protocol'
-import { withRetry } from '../../utils/sync/errors'
 import { handlePush } from '../../utils/sync/push'
 
 export default defineEventHandler(async (event) => {

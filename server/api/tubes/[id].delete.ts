@@ -3,7 +3,7 @@ import { tubeParamsSchema } from '#shared/utils/schemas/tubes'
 
 // Retire, never erase: saved results may name the entry.
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, TUBE_EDITORS)
+  const access = await requireActiveShopRole(event, rolesFor('tubes', 'remove'))
   const { id } = await validParams(event, tubeParamsSchema)
   refuseBuiltin(id)
   const db = useDb()

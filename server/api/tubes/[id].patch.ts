@@ -2,7 +2,7 @@ import { and, eq } from 'drizzle-orm'
 import { tubeParamsSchema, tubePatchSchema } from '#shared/utils/schemas/tubes'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, TUBE_EDITORS)
+  const access = await requireActiveShopRole(event, rolesFor('tubes', 'update'))
   const { id } = await validParams(event, tubeParamsSchema)
   refuseBuiltin(id)
   const patch = await validBody(event, tubePatchSchema)

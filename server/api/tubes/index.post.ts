@@ -3,7 +3,7 @@ import { eq } from 'drizzle-orm'
 import { tubeCreateSchema } from '#shared/utils/schemas/tubes'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, TUBE_EDITORS)
+  const access = await requireActiveShopRole(event, rolesFor('tubes', 'create'))
   const body = await validBody(event, tubeCreateSchema)
   const id = body.id ?? randomUUID()
   const db = useDb()

@@ -1,6 +1,5 @@
 import { sql } from 'drizzle-orm'
 import { bigint, datetime, json, varchar } from 'drizzle-orm/mysql-core'
-import type { FieldStamps } from './notebook'
 
 // Shared column helpers: client-generatable UUID keys and UTC millisecond timestamps.
 export const uuid = (name: string) => varchar(name, { length: 36 })
@@ -9,6 +8,9 @@ export const timestamps = () => ({
   createdAt: stamp('created_at').notNull().default(sql`CURRENT_TIMESTAMP(3)`),
   updatedAt: stamp('updated_at').notNull().default(sql`CURRENT_TIMESTAMP(3)`).$onUpdate(() => new Date()),
 })
+
+/** Per field: the shop version, client, user and time of its last change (conflict detection). */
+export type FieldStamps = Record<string, { v: number, c: string, u: string, at: string }>
 
 /** Columns every field-versioned synced record carries. */
 export const synced = () => ({

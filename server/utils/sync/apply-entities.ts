@@ -1,27 +1,39 @@
 import { and, eq } from 'drizzle-orm'
 import { ENTITY_FIELDS, parseEntityCreate, type EntityTable } from '#shared/utils/sync/entities'
-import type { FieldStamps } from '../../db/schema/notebook'
+import { ownOnly, rolesFor, type Verb } from '#shared/utils/permissions'
+import type { FieldStamps } from '../../db/schema/columns'
 import { reject, type ApplyContext, type ApplyOutcome } from './context'
 import { changedByOthers, recordConflict, stampFor } from './conflicts'
 import { ENTITY_POLICIES } from './entity-policies'
 
-function allowed(ctx: ApplyContext, roles: readonly string[], verb: string, table: EntityTable) {
-  if (!roles.includes(ctx.role)) reject(`your role may not ${verb} ${table}`, 'forbidden')
+const WORDS: Record<Verb, string> = { read: 'read', create: 'create', update: 'change', remove: 'delete', pay: 'pay' }
+
+function allowed(ctx: ApplyContext, table: EntityTable, verb: Verb, word = WORDS[verb]) {
+  if (!rolesFor(table, verb).includes(ctx.role)) reject(`your role may not ${word} ${table}`, 'forbidden')
 }
 
-async function lock(ctx: ApplyContext, table: EntityTable, id: string) {
-  const t = ENTITY_POLICIES[table].table
+type LockedRow = Record<string, unknown> & { id: string, fieldStamps: FieldStamps, createdBy: string, deletedAt: Date | null, updatedBy: string | null, updatedAt: Date }
+
+/** The row, locked for this transaction; refused if it is not this shop's or (for an own-only role) not the person's. */
+async function lock(ctx: ApplyContext, table: EntityTable, id: string, verb: Verb) {
+  const policy = ENTITY_POLICIES[table]
+  const t = policy.table
   const [row] = await ctx.tx.select().from(t).where(and(eq(t.id, id), eq(t.shopId, ctx.shopId))).for('update')
   if (!row) reject(`${table} record not found`, 'missing')
-  return row as Record<string, unknown> & { id: string, fieldStamps: FieldStamps, deletedAt: Date | null, updatedBy: string | null, updatedAt: Date }
+  const locked = row as LockedRow
+  if (locked.createdBy !== ctx.userId && ownOnly(ctx.role, table, verb)) reject(policy.ownReason ?? `you may ${WORDS[verb]} only your own ${table}`, 'forbidden')
+  return locked
 }
+
+/** What a record held, for the side of a conflict that kept it. */
+const fieldsOf = (table: EntityTable, row: Record<string, unknown>) => Object.fromEntries(Object.keys(ENTITY_FIELDS[table].shape).map(k => [k, row[k]]))
 
 export async function entityCreate(ctx: ApplyContext, table: EntityTable, args: { id: string } & Record<string, unknown>): Promise<ApplyOutcome> {
   const policy = ENTITY_POLICIES[table]
-  allowed(ctx, policy.create, 'create', table)
+  allowed(ctx, table, 'create')
   const parsed = parseEntityCreate(table, args)
   if (!parsed.success) reject(zodMessage(parsed.error))
-  const fields = parsed.data as Record<string, unknown>
+  const fields = policy.normalise ? policy.normalise(parsed.data as Record<string, unknown>) : parsed.data as Record<string, unknown>
   const t = policy.table
   const [existing] = await ctx.tx.select({ id: t.id }).from(t).where(eq(t.id, args.id))
   if (existing) reject('a record with this id already exists')
@@ -38,8 +50,8 @@ export async function entityCreate(ctx: ApplyContext, table: EntityTable, args: 
 
 export async function entitySetFields(ctx: ApplyContext, table: EntityTable, args: { id: string, fields: Record<string, unknown> }): Promise<ApplyOutcome> {
   const policy = ENTITY_POLICIES[table]
-  allowed(ctx, policy.update, 'change', table)
-  const row = await lock(ctx, table, args.id)
+  allowed(ctx, table, 'update')
+  const row = await lock(ctx, table, args.id, 'update')
   const keys = Object.keys(args.fields).filter(k => args.fields[k] !== undefined && k in ENTITY_FIELDS[table].shape)
   if (row.deletedAt) {
     for (const k of keys) {
@@ -71,12 +83,12 @@ export async function entitySetFields(ctx: ApplyContext, table: EntityTable, arg
 
 export async function entityDelete(ctx: ApplyContext, table: EntityTable, args: { id: string }): Promise<ApplyOutcome> {
   const policy = ENTITY_POLICIES[table]
-  allowed(ctx, policy.remove, 'delete', table)
-  const row = await lock(ctx, table, args.id)
+  allowed(ctx, table, 'remove')
+  const row = await lock(ctx, table, args.id, 'remove')
   if (row.deletedAt) return { status: 'applied', touched: true }
   const clashing = changedByOthers(ctx, row.fieldStamps, Object.keys(row.fieldStamps))
   if (clashing.length) {
-    await recordConflict(ctx, { tableName: table, rowId: row.id, field: '_delete', serverValue: null, clientValue: true, serverAuthor: row.updatedBy, serverChangedAt: row.updatedAt, note: 'deleted after someone else edited it' })
+    await recordConflict(ctx, { tableName: table, rowId: row.id, field: '_delete', serverValue: fieldsOf(table, row), clientValue: true, serverAuthor: row.updatedBy, serverChangedAt: row.updatedAt, note: 'deleted after someone else edited it' })
     await ctx.tx.update(policy.table).set({ version: ctx.version }).where(eq(policy.table.id, row.id))
     return { status: 'conflict', touched: true, reason: 'edited by someone else since you last saw it' }
   }
@@ -86,8 +98,8 @@ export async function entityDelete(ctx: ApplyContext, table: EntityTable, args: 
 
 export async function entityRestore(ctx: ApplyContext, table: EntityTable, args: { id: string }): Promise<ApplyOutcome> {
   const policy = ENTITY_POLICIES[table]
-  allowed(ctx, policy.remove, 'restore', table)
-  const row = await lock(ctx, table, args.id)
+  allowed(ctx, table, 'remove', 'restore')
+  const row = await lock(ctx, table, args.id, 'remove')
   await ctx.tx.update(policy.table).set({ deletedAt: null, version: ctx.version, updatedBy: ctx.userId }).where(eq(policy.table.id, row.id))
   return { status: 'applied', touched: true }
 }
@@ -95,8 +107,9 @@ export async function entityRestore(ctx: ApplyContext, table: EntityTable, args:
 /** A person's decision on an entity field conflict. */
 export async function resolveEntityField(ctx: ApplyContext, table: EntityTable, rowId: string, field: string, value: unknown) {
   const policy = ENTITY_POLICIES[table]
-  allowed(ctx, policy.update, 'change', table)
-  const row = await lock(ctx, table, rowId)
+  const verb = field === '_delete' ? 'remove' : 'update'
+  allowed(ctx, table, verb)
+  const row = await lock(ctx, table, rowId, verb)
   if (field === '_delete') {
     await ctx.tx.update(policy.table).set({ deletedAt: value === true ? ctx.now : null, version: ctx.version }).where(eq(policy.table.id, rowId))
     return

@@ -1,9 +1,7 @@
 import { and, eq } from 'drizzle-orm'
 import type { MutationArgs } from '#shared/utils/sync/protocol'
+import { ENTITY_PREFIX, ENTITY_TABLES, INSERT_ONLY, type EntityTable } from '#shared/utils/sync/entities'
 import { isStaff, reject, type ApplyContext, type ApplyOutcome, type ApplyTable } from './context'
-import { noteCreate, noteDelete, noteRestore, noteSetFields, resolveNoteField } from './apply-notes'
-import { measurementCreate, measurementDelete } from './apply-measurements'
-import { ENTITY_PREFIX, ENTITY_TABLES, type EntityTable } from '#shared/utils/sync/entities'
 import { entityCreate, entityDelete, entityRestore, entitySetFields, resolveEntityField } from './apply-entities'
 
 async function conflictResolve(ctx: ApplyContext, a: MutationArgs<'conflict.resolve'>): Promise<ApplyOutcome> {
@@ -12,9 +10,8 @@ async function conflictResolve(ctx: ApplyContext, a: MutationArgs<'conflict.reso
   if (!c) reject('conflict not found')
   if (c!.status === 'resolved') reject('someone already decided this conflict')
   if (!isStaff(ctx.role) && c!.clientAuthor !== ctx.userId && c!.serverAuthor !== ctx.userId) reject('not your conflict')
-  if (c!.tableName === 'notes') await resolveNoteField(ctx, c!.rowId, c!.field, a.value)
-  else if ((ENTITY_TABLES as string[]).includes(c!.tableName)) await resolveEntityField(ctx, c!.tableName as EntityTable, c!.rowId, c!.field, a.value)
-  else reject('this kind of conflict cannot be resolved here')
+  if (!(ENTITY_TABLES as string[]).includes(c!.tableName)) reject('this kind of conflict cannot be resolved here')
+  await resolveEntityField(ctx, c!.tableName as EntityTable, c!.rowId, c!.field, a.value)
   await ctx.tx.update(tables.syncConflicts).set({
     status: 'resolved', resolution: { value: a.value }, resolvedBy: ctx.userId, resolvedAt: ctx.now, version: ctx.version,
   }).where(eq(tables.syncConflicts.id, a.id))
@@ -27,21 +24,12 @@ function entityAppliers() {
   for (const table of ENTITY_TABLES) {
     const p = ENTITY_PREFIX[table]
     out[`${p}.create`] = (ctx, a) => entityCreate(ctx, table, a)
-    out[`${p}.setFields`] = (ctx, a) => entitySetFields(ctx, table, a)
+    if (!(INSERT_ONLY as readonly EntityTable[]).includes(table)) out[`${p}.setFields`] = (ctx, a) => entitySetFields(ctx, table, a)
     out[`${p}.delete`] = (ctx, a) => entityDelete(ctx, table, a)
     out[`${p}.restore`] = (ctx, a) => entityRestore(ctx, table, a)
   }
-  return out as unknown as Omit<ApplyTable, 'note.create' | 'note.setFields' | 'note.delete' | 'note.restore' | 'measurement.create' | 'measurement.delete' | 'conflict.resolve'>
+  return out as unknown as Omit<ApplyTable, 'conflict.resolve'>
 }
 /* eslint-enable @typescript-eslint/no-explicit-any */
 
-export const APPLY: ApplyTable = {
-  ...entityAppliers(),
-  'note.create': noteCreate,
-  'note.setFields': noteSetFields,
-  'note.delete': noteDelete,
-  'note.restore': noteRestore,
-  'measurement.create': measurementCreate,
-  'measurement.delete': measurementDelete,
-  'conflict.resolve': conflictResolve,
-}
+export const APPLY: ApplyTable = { ...entityAppliers(), 'conflict.resolve': conflictResolve }

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto'
 import type { ApplyContext } from './context'
-import type { FieldStamps } from '../../db/schema/notebook'
+import type { FieldStamps } from '../../db/schema/columns'
 
 export async function recordConflict(ctx: ApplyContext, c: {
   tableName: string

@@ -1,5 +1,5 @@
 import type { MutationArgs, MutationName } from '#shared/utils/sync/protocol'
-import type { Role } from '#shared/utils/roles'
+import { STAFF_ROLES, type Role } from '#shared/utils/roles'
 import type { Tx } from '../db'
 
 export interface ApplyContext {
@@ -35,14 +35,6 @@ export const reject = (reason: string, kind: RejectionKind = 'invalid'): never =
   throw new Rejection(reason, kind)
 }
 
-/** Run after-commit work without holding up the answer; each task handles its own failure. */
-export function runAfterCommit(tasks: (() => Promise<unknown>)[]) {
-  for (const task of tasks) {
-    task().catch(error => console.error('after-commit task failed:', (error as Error).message))
-  }
-}
-
 export type ApplyTable = { [N in MutationName]: (ctx: ApplyContext, args: MutationArgs<N>) => Promise<ApplyOutcome> }
 
-export const STAFF: readonly Role[] = ['owner', 'tech', 'desk']
-export const isStaff = (role: Role) => STAFF.includes(role)
+export const isStaff = (role: Role) => STAFF_ROLES.includes(role)

@@ -1,10 +1,8 @@
 import { randomUUID } from 'node:crypto'
-import { eq } from 'drizzle-orm'
 import { MUTATION_ARGS, type MutationArgs, type MutationName } from '#shared/utils/sync/protocol'
 import type { ShopAccess } from '../authz'
 import { APPLY } from './apply'
-import { Rejection, runAfterCommit, type ApplyContext, type ApplyOutcome } from './context'
-import { withRetry } from './errors'
+import { Rejection, type ApplyContext, type ApplyOutcome } from './context'
 
 const STATUS = { invalid: 400, forbidden: 403, missing: 404 } as const
 
@@ -22,12 +20,10 @@ export async function applyDirect<N extends MutationName>(access: Pick<ShopAcces
   const db = useDb()
   let afterCommit: (() => Promise<unknown>)[] = []
   const outcome = await withRetry(async () => {
-    await db.insert(tables.shopVersions).ignore().values({ shopId: access.shopId })
+    await ensureShopVersionRow(access.shopId)
     return db.transaction(async (tx) => {
       afterCommit = []
-      const [shopRow] = await tx.select({ version: tables.shopVersions.version }).from(tables.shopVersions)
-        .where(eq(tables.shopVersions.shopId, access.shopId)).for('update')
-      const current = shopRow?.version ?? 0
+      const current = await lockShopVersion(tx, access.shopId)
       const ctx: ApplyContext = {
         tx, shopId: access.shopId, userId: access.userId, role: access.role, clientId: DIRECT_CLIENT_ID,
         version: current + 1, mutationUuid: randomUUID(), baseVersion: current, now: new Date(), afterCommit,
@@ -35,7 +31,7 @@ export async function applyDirect<N extends MutationName>(access: Pick<ShopAcces
       const apply = APPLY[name] as (ctx: ApplyContext, a: unknown) => Promise<ApplyOutcome>
       try {
         const result = await apply(ctx, parsed.data)
-        if (result.touched) await tx.update(tables.shopVersions).set({ version: current + 1 }).where(eq(tables.shopVersions.shopId, access.shopId))
+        if (result.touched) await bumpShopVersion(tx, access.shopId, current + 1)
         return result
       }
       catch (error) {

@@ -5,16 +5,22 @@ import type { EntityFields, EntityTable } from '#shared/utils/sync/entities'
 import type { Role } from '#shared/utils/roles'
 import { canTransition, JOB_STATE_LABELS, type JobState } from '#shared/utils/jobs/states'
 import { evaluateRun, findProcedure, gateComplete, mayRun, validVariant, type ProcedureDefinition } from '#shared/utils/procedures/index'
+import { parseToolInputs, verifySavedResult, type BenchToolId } from '#shared/utils/bench'
 import { reject, type ApplyContext } from './context'
 
 type Row = Record<string, unknown> & { id: string, status?: JobState }
 
+/**
+ * How the server takes one kind of record. Who may create, change and delete it is in
+ * PERMISSIONS (`#shared/utils/permissions`), read by the apply functions.
+ */
 export interface EntityPolicy {
   // eslint-disable-next-line @typescript-eslint/no-explicit-any -- each entry is one of the entity tables
   table: MySqlTableWithColumns<any>
-  create: readonly Role[]
-  update: readonly Role[]
-  remove: readonly Role[]
+  /** The refusal when a role that may touch only its own records touches someone else's. */
+  ownReason?: string
+  /** The fields as stored, from the fields as sent (may refuse them). */
+  normalise?: (fields: Record<string, unknown>) => Record<string, unknown>
   /** Refuse a record that points at something outside this shop. */
   check?: (ctx: ApplyContext, next: Record<string, unknown>, before?: Row) => Promise<void>
   /** Rows the server writes alongside (the job timeline). */
@@ -52,6 +58,14 @@ function procedureFor(ctx: ApplyContext, id: unknown): ProcedureDefinition {
   return procedure
 }
 
+/** The result recomputed from its inputs (refused if it does not match); inputs are stored as the engine read them. */
+export function checkSavedResult(fields: Record<string, unknown>) {
+  const m = fields as { tool: BenchToolId, inputs: Record<string, unknown>, outputs: Record<string, unknown>, engineVersion: string }
+  const verdict = verifySavedResult({ tool: m.tool, inputs: m.inputs, outputs: m.outputs, engineVersion: m.engineVersion })
+  if (!verdict.ok) reject(`the saved result does not match its inputs: ${verdict.reason}`)
+  return { ...fields, inputs: parseToolInputs(m.tool, m.inputs) as Record<string, unknown> }
+}
+
 const UNCHANGEABLE_RUN_FIELDS = ['procedureId', 'gateId', 'jobId', 'variant'] as const
 
 // The gate rule: a run exists only with its own safety check, acknowledged in full by the person running it.
@@ -60,7 +74,6 @@ async function checkRun(ctx: ApplyContext, next: Record<string, unknown>, previo
   const before = previous as (Record<string, unknown> & Partial<EntityFields<'procedureRuns'>>) | undefined
   const procedure = procedureFor(ctx, run.procedureId)
   if (before) {
-    if (before.createdBy !== ctx.userId && ctx.role !== 'owner') reject('only the person running it (or an owner) may change a run', 'forbidden')
     for (const f of UNCHANGEABLE_RUN_FIELDS) if (before[f] !== next[f]) reject(`a run's ${f} cannot change once it has started`)
     if (before.status !== 'running' && run.status !== before.status) reject('a finished run cannot be reopened')
   }
@@ -75,6 +88,12 @@ async function checkRun(ctx: ApplyContext, next: Record<string, unknown>, previo
       reject('a run needs its own acknowledged safety check, made by the person running it, before step 1')
     }
   }
+  // A reading taken with a bench tool names the saved result: it must be this shop's.
+  for (const [step, reading] of Object.entries(run.readings ?? {})) {
+    if (reading.measurementId && reading.measurementId !== before?.readings?.[step]?.measurementId) {
+      await mustExist(ctx, 'measurements', reading.measurementId, 'measurement')
+    }
+  }
   if (run.status === 'done' && before?.status !== 'done') {
     const e = evaluateRun(procedure, run.variant, { tubes: run.tubeCount, caps: run.capCount }, run.readings)
     if (e.outOfRange.length) reject(`the run cannot be done while a reading is out of range (${e.outOfRange.map(o => o.step.key).join(', ')}): ${e.outOfRange[0]!.reason}`)
@@ -85,23 +104,14 @@ async function checkRun(ctx: ApplyContext, next: Record<string, unknown>, previo
 export const ENTITY_POLICIES: Record<EntityTable, EntityPolicy> = {
   customers: {
     table: tables.customers,
-    create: ['owner', 'desk'],
-    update: ['owner', 'desk'],
-    remove: ['owner'],
     check: (ctx, next) => mustBeMember(ctx, next.playerUserId, 'the linked player', ['player']),
   },
   amps: {
     table: tables.amps,
-    create: ['owner', 'desk', 'tech'],
-    update: ['owner', 'desk', 'tech'],
-    remove: ['owner'],
     check: (ctx, next) => mustExist(ctx, 'customers', next.customerId, 'customer'),
   },
   jobs: {
     table: tables.jobs,
-    create: ['owner', 'desk'],
-    update: ['owner', 'desk', 'tech'],
-    remove: ['owner'],
     async check(ctx, next, before) {
       await mustExist(ctx, 'customers', next.customerId, 'customer')
       await mustExist(ctx, 'amps', next.ampId, 'amp')
@@ -127,27 +137,33 @@ export const ENTITY_POLICIES: Record<EntityTable, EntityPolicy> = {
   },
   jobParts: {
     table: tables.jobParts,
-    create: ['owner', 'tech'],
-    update: ['owner', 'tech'],
-    remove: ['owner', 'tech'],
     check: (ctx, next) => mustExist(ctx, 'jobs', next.jobId, 'job'),
   },
   jobLabour: {
     table: tables.jobLabour,
-    create: ['owner', 'tech'],
-    update: ['owner', 'tech'],
-    remove: ['owner', 'tech'],
     async check(ctx, next) {
       await mustExist(ctx, 'jobs', next.jobId, 'job')
       await mustBeMember(ctx, next.techId, 'the tech', ['owner', 'tech'])
     },
   },
+  notes: {
+    table: tables.notes,
+    ownReason: 'players may change only their own notes',
+    // The job is fixed when the note is written.
+    check: (ctx, next, before) => (before ? Promise.resolve() : mustExist(ctx, 'jobs', next.jobId, 'job')),
+  },
+  measurements: {
+    table: tables.measurements,
+    ownReason: 'only its author or the owner may delete a measurement',
+    normalise: checkSavedResult,
+    async check(ctx, next) {
+      await mustExist(ctx, 'jobs', next.jobId, 'job')
+      // A rig is a player's amp record.
+      await mustExist(ctx, 'amps', next.rigId, 'rig')
+    },
+  },
   procedureGates: {
     table: tables.procedureGates,
-    create: ['owner', 'tech', 'player'],
-    // Insert-only: an acknowledgement is a record of what was ticked, never rewritten.
-    update: [],
-    remove: [],
     async check(ctx, next) {
       const procedure = procedureFor(ctx, next.procedureId)
       if (!gateComplete(procedure, next.items as string[])) reject(`every item of the ${procedure.title} safety check must be ticked, and only those`)
@@ -158,9 +174,7 @@ export const ENTITY_POLICIES: Record<EntityTable, EntityPolicy> = {
   },
   procedureRuns: {
     table: tables.procedureRuns,
-    create: ['owner', 'tech', 'player'],
-    update: ['owner', 'tech', 'player'],
-    remove: ['owner'],
+    ownReason: 'only the person running it (or an owner) may change a run',
     check: checkRun,
   },
 }

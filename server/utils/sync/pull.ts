@@ -6,7 +6,6 @@ import { PULL_PAGE_SIZE, SYNC_SCHEMA_VERSION, type PullBody, type PullReply, typ
 import type { Role } from '#shared/utils/roles'
 import type { Tx } from '../db'
 import { isStaff } from './context'
-import { withRetry } from './errors'
 import { registerClient } from './push'
 
 interface Cookie { v: number, s: number, r: string, m: number, p?: string }
@@ -41,19 +40,27 @@ async function playerScope(tx: Tx, a: Access): Promise<Scope | null> {
   return { customerIds, jobIds: js.map(j => j.id) }
 }
 
+type EntityColumns = (typeof ENTITY_POLICIES)[EntityTable]['table']
+
+/** What a player pulls of each record; staff pull the whole shop. */
+const PLAYER_SEES: Record<EntityTable, (t: EntityColumns, a: Access, scope: Scope) => SQL | undefined> = {
+  customers: (t, _a, s) => inIds(t.id, s.customerIds),
+  amps: (t, _a, s) => inIds(t.customerId, s.customerIds),
+  jobs: (t, _a, s) => inIds(t.id, s.jobIds),
+  jobParts: (t, _a, s) => inIds(t.jobId, s.jobIds),
+  jobLabour: (t, _a, s) => inIds(t.jobId, s.jobIds),
+  // Their own notes, and the shop's notes on their jobs written for the customer.
+  notes: (t, a, s) => or(eq(t.createdBy, a.userId), and(inIds(t.jobId, s.jobIds), eq(t.visibility, 'customer'))),
+  measurements: (t, a, s) => or(eq(t.createdBy, a.userId), inIds(t.jobId, s.jobIds)),
+  // A player's own backstage checks, and the runs on their jobs (the service record shows them).
+  procedureGates: (t, a, s) => or(eq(t.createdBy, a.userId), inIds(t.jobId, s.jobIds)),
+  procedureRuns: (t, a, s) => or(eq(t.createdBy, a.userId), inIds(t.jobId, s.jobIds)),
+}
+
 async function readEntities(tx: Tx, a: Access, scope: Scope | null, table: EntityTable, from: number, to: number): Promise<RowChange[]> {
   const t = ENTITY_POLICIES[table].table
-  let mine: SQL | undefined
-  if (scope) {
-    mine = table === 'customers' ? inIds(t.id, scope.customerIds)
-      : table === 'amps' ? inIds(t.customerId, scope.customerIds)
-        : table === 'jobs' ? inIds(t.id, scope.jobIds)
-          // A player's own backstage checks, and the runs on their jobs (the service record shows them).
-          : table === 'procedureGates' || table === 'procedureRuns' ? or(eq(t.createdBy, a.userId), inIds(t.jobId, scope.jobIds))
-            : inIds(t.jobId, scope.jobIds)
-  }
   const rows = await tx.select().from(t)
-    .where(and(eq(t.shopId, a.shopId), gt(t.version, from), lte(t.version, to), mine))
+    .where(and(eq(t.shopId, a.shopId), gt(t.version, from), lte(t.version, to), scope ? PLAYER_SEES[table](t, a, scope) : undefined))
     .orderBy(asc(t.version)).limit(PULL_PAGE_SIZE + 1) as (Record<string, unknown> & { id: string, version: number, deletedAt: Date | null, fieldStamps: Record<string, { v: number }> })[]
   const keys = Object.keys(ENTITY_FIELDS[table].shape)
   return rows.map(r => ({
@@ -87,37 +94,6 @@ async function readInvoices(tx: Tx, a: Access, scope: Scope | null, from: number
       jobId: r.jobId, number: r.number, kind: r.kind, state: r.state, lines: r.lines, partsCents: r.partsCents, labourCents: r.labourCents,
       subtotalCents: r.subtotalCents, taxRateBasisPoints: r.taxRateBasisPoints, taxCents: r.taxCents, totalCents: r.totalCents,
       currency: r.currency, issuedAt: iso(r.issuedAt), paidAt: iso(r.paidAt), paidWith: r.paidWith, createdAt: iso(r.createdAt),
-    },
-  }))
-}
-
-async function readNotes(tx: Tx, a: Access, scope: Scope | null, from: number, to: number): Promise<RowChange[]> {
-  const t = tables.notes
-  const mine: SQL | undefined = scope ? or(eq(t.authorId, a.userId), and(inIds(t.jobId, scope.jobIds), eq(t.visibility, 'customer'))) : undefined
-  const rows = await tx.select().from(t)
-    .where(and(eq(t.shopId, a.shopId), gt(t.version, from), lte(t.version, to), mine))
-    .orderBy(asc(t.version)).limit(PULL_PAGE_SIZE + 1)
-  return rows.map(r => ({
-    table: 'notes', id: r.id, version: r.version, deleted: !!r.deletedAt,
-    data: {
-      jobId: r.jobId, title: r.title, body: r.body, visibility: r.visibility, authorId: r.authorId, updatedBy: r.updatedBy,
-      createdAt: iso(r.createdAt), updatedAt: iso(r.updatedAt), deletedAt: iso(r.deletedAt),
-      fieldVersions: Object.fromEntries(Object.entries(r.fieldStamps).map(([k, s]) => [k, s.v])),
-    },
-  }))
-}
-
-async function readMeasurements(tx: Tx, a: Access, scope: Scope | null, from: number, to: number): Promise<RowChange[]> {
-  const t = tables.measurements
-  const mine = scope ? or(eq(t.authorId, a.userId), inIds(t.jobId, scope.jobIds)) : undefined
-  const rows = await tx.select().from(t)
-    .where(and(eq(t.shopId, a.shopId), gt(t.version, from), lte(t.version, to), mine))
-    .orderBy(asc(t.version)).limit(PULL_PAGE_SIZE + 1)
-  return rows.map(r => ({
-    table: 'measurements', id: r.id, version: r.version, deleted: !!r.deletedAt,
-    data: {
-      jobId: r.jobId, rigId: r.rigId, tool: r.tool, inputs: r.inputs, outputs: r.outputs, engineVersion: r.engineVersion,
-      label: r.label, authorId: r.authorId, createdAt: iso(r.createdAt), deletedAt: iso(r.deletedAt),
     },
   }))
 }
@@ -156,8 +132,6 @@ export async function handlePull(access: Access & { memberSince: number }, body:
     const from = reset ? 0 : cookie!.v
 
     const parts = await Promise.all([
-      readNotes(tx, access, scope, from, current),
-      readMeasurements(tx, access, scope, from, current),
       readConflicts(tx, access, from, current),
       ...ENTITY_TABLES.map(t => readEntities(tx, access, scope, t, from, current)),
       readJobEvents(tx, access, scope, from, current),

@@ -2,9 +2,8 @@ import { createHash } from 'node:crypto'
 import { and, eq, sql } from 'drizzle-orm'
 import { canonicalJson, isMutationName, MUTATION_ARGS, SYNC_SCHEMA_VERSION, type Mutation, type MutationResult, type PushBody, type PushReply } from '#shared/utils/sync/protocol'
 import type { Role } from '#shared/utils/roles'
-import { Rejection, runAfterCommit, type ApplyContext, type ApplyOutcome } from './context'
+import { Rejection, type ApplyContext, type ApplyOutcome } from './context'
 import { APPLY } from './apply'
-import { withRetry } from './errors'
 
 export const payloadHash = (m: Mutation) => createHash('sha256').update(canonicalJson({ uuid: m.uuid, name: m.name, args: m.args, baseVersion: m.baseVersion ?? null })).digest('hex')
 
@@ -17,10 +16,6 @@ export async function registerClient(clientId: string, userId: string, shopId: s
     throw createError({ statusCode: 403, message: 'This device id belongs to another account or shop. Sign in again to start a fresh device store.' })
   }
   return c
-}
-
-async function ensureShopVersionRow(shopId: string) {
-  await useDb().insert(tables.shopVersions).ignore().values({ shopId })
 }
 
 type Access = { userId: string, shopId: string, role: Role }
@@ -36,10 +31,8 @@ async function applyBatch(access: Access, clientId: string, mutations: Mutation[
     afterCommit = []
     const [client] = await tx.select({ lmid: tables.syncClients.lmid }).from(tables.syncClients)
       .where(eq(tables.syncClients.id, clientId)).for('update')
-    const [shopRow] = await tx.select({ version: tables.shopVersions.version }).from(tables.shopVersions)
-      .where(eq(tables.shopVersions.shopId, access.shopId)).for('update')
     let lmid = client?.lmid ?? 0
-    let version = shopRow?.version ?? 0
+    let version = await lockShopVersion(tx, access.shopId)
     const startVersion = version
     const startLmid = lmid
     const results: MutationResult[] = []
@@ -85,7 +78,7 @@ async function applyBatch(access: Access, clientId: string, mutations: Mutation[
       lmid = m.id
       results.push({ id: m.id, status: outcome.status, ...(outcome.reason ? { reason: outcome.reason } : {}) })
     }
-    if (version !== startVersion) await tx.update(tables.shopVersions).set({ version }).where(eq(tables.shopVersions.shopId, access.shopId))
+    if (version !== startVersion) await bumpShopVersion(tx, access.shopId, version)
     if (lmid !== startLmid) await tx.update(tables.syncClients).set({ lmid, lastSeenAt: sql`CURRENT_TIMESTAMP(3)` }).where(eq(tables.syncClients.id, clientId))
     return results
   }))

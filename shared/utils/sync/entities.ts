@@ -1,11 +1,13 @@
-// Synced records edited field by field (customers, amps, jobs, parts, labour, procedure runs;
-// procedure gates are created and never changed). Each gets
-// `<prefix>.create`, `.setFields` (with baseVersion), `.delete` and `.restore` mutations.
+// Every record a person makes on a device (customers, amps, jobs, parts, labour, notes, bench
+// results, procedure checks and runs). Each gets `<prefix>.create`, `.setFields` (with
+// baseVersion, edited field by field), `.delete` and `.restore` mutations; an insert-only record
+// (a bench result) has no `.setFields`.
 import { z } from 'zod'
 import { JOB_PRIORITIES, JOB_STATES } from '../jobs/states'
 import { MAX_REPEAT } from '../procedures/run'
+import { BENCH_TOOL_IDS } from '../bench/tool-schemas'
+import { id } from '../schemas/records'
 
-const id = z.uuid({ message: 'must be an id' })
 const text = (max: number) => z.string().trim().max(max, { message: `at most ${max} characters` })
 const cents = z.number().int({ message: 'must be whole cents' }).min(0).max(100_000_000)
 const sha256 = z.string().regex(/^[0-9a-f]{64}$/, { message: 'must be a photo hash' })
@@ -14,6 +16,7 @@ const at = z.iso.datetime({ offset: true, message: 'must be a date and time' })
 export const RUN_STATUSES = ['running', 'done', 'stopped'] as const
 const stepKey = z.string().min(1).max(80)
 const stepReading = z.object({ value: z.number().finite().optional(), measurementId: id.optional(), at })
+export const NOTE_VISIBILITY = ['internal', 'customer'] as const
 
 export const ENTITY_FIELDS = {
   customers: z.object({
@@ -58,6 +61,24 @@ export const ENTITY_FIELDS = {
     rateCents: cents,
     techId: id.nullable(),
   }),
+  // Note text is kept as typed (not trimmed): it is the person's own writing.
+  notes: z.object({
+    jobId: id.nullable(),
+    title: z.string().max(200, { message: 'at most 200 characters' }),
+    body: z.string().max(20_000, { message: 'at most 20,000 characters' }),
+    visibility: z.enum(NOTE_VISIBILITY),
+  }),
+  // A saved bench result; the server recomputes it from its inputs before taking it.
+  measurements: z.object({
+    tool: z.enum(BENCH_TOOL_IDS),
+    inputs: z.record(z.string(), z.unknown()),
+    outputs: z.record(z.string(), z.unknown()),
+    engineVersion: z.string().max(20),
+    label: z.string().max(200).nullable(),
+    jobId: id.nullable(),
+    // A rig is a player's amp record.
+    rigId: id.nullable(),
+  }),
   // Insert-only: who ticked which hazards, when, for which run.
   procedureGates: z.object({
     runId: id,
@@ -91,11 +112,19 @@ export const ENTITY_PREFIX = {
   jobs: 'job',
   jobParts: 'jobPart',
   jobLabour: 'jobLabour',
+  notes: 'note',
+  measurements: 'measurement',
   procedureGates: 'procedureGate',
   procedureRuns: 'procedureRun',
 } as const satisfies Record<EntityTable, string>
 
 type Prefix<T extends EntityTable> = (typeof ENTITY_PREFIX)[T]
+
+/** What a person calls one record of each kind (sync screen, conflicts, "not found" answers). */
+export const ENTITY_NOUNS: Record<EntityTable, string> = {
+  customers: 'Customer', amps: 'Amp', jobs: 'Job', jobParts: 'Part', jobLabour: 'Labour', notes: 'Note',
+  measurements: 'Bench result', procedureGates: 'Safety check', procedureRuns: 'Procedure run',
+}
 
 /** Fields a create may leave out, with their defaults. */
 export const ENTITY_DEFAULTS: { [T in EntityTable]: Partial<EntityFields<T>> } = {
@@ -104,24 +133,36 @@ export const ENTITY_DEFAULTS: { [T in EntityTable]: Partial<EntityFields<T>> } =
   jobs: { accessories: '', photos: [], promisedFor: '', assignedTo: null, priority: 'normal', status: 'checked-in' },
   jobParts: { unitCostCents: 0 },
   jobLabour: { description: '', techId: null },
+  notes: { jobId: null, title: '', visibility: 'internal' },
+  measurements: { label: null, jobId: null, rigId: null },
   procedureGates: { jobId: null },
   procedureRuns: { variant: '', jobId: null, tubeCount: 2, capCount: 3, status: 'running', stepIndex: 0, readings: {}, warnings: [], endedAt: '', endReason: '' },
 }
+
+/** Fields set when the record is made and never by `.setFields` (a setFields naming one drops it). */
+export const ENTITY_FIXED: Partial<Record<EntityTable, readonly string[]>> = {
+  notes: ['jobId'],
+}
+
+/** Records that are made once and never edited: no `.setFields` mutation. */
+export const INSERT_ONLY = ['measurements'] as const satisfies readonly EntityTable[]
+type InsertOnly = (typeof INSERT_ONLY)[number]
 
 function entityMutations<T extends EntityTable>(table: T) {
   const fields = ENTITY_FIELDS[table] as z.ZodObject
   const prefix = ENTITY_PREFIX[table] as Prefix<T>
   // Required fields are checked after the defaults are merged (see parseEntityCreate).
   const create = fields.partial().extend({ id })
+  const editable = fields.omit(Object.fromEntries((ENTITY_FIXED[table] ?? []).map(f => [f, true])) as never).partial()
   return {
     [`${prefix}.create`]: create,
-    [`${prefix}.setFields`]: z.object({ id, fields: fields.partial().refine((f: object) => Object.keys(f).length > 0, { message: 'change at least one field' }) }),
+    ...((INSERT_ONLY as readonly EntityTable[]).includes(table) ? {} : { [`${prefix}.setFields`]: z.object({ id, fields: editable.refine((f: object) => Object.keys(f).length > 0, { message: 'change at least one field' }) }) }),
     [`${prefix}.delete`]: z.object({ id }),
     [`${prefix}.restore`]: z.object({ id }),
   } as {
     [K in `${Prefix<T>}.create`]: z.ZodType<{ id: string } & Partial<EntityFields<T>>>
   } & {
-    [K in `${Prefix<T>}.setFields`]: z.ZodType<{ id: string, fields: Partial<EntityFields<T>> }>
+    [K in T extends InsertOnly ? never : `${Prefix<T>}.setFields`]: z.ZodType<{ id: string, fields: Partial<EntityFields<T>> }>
   } & {
     [K in `${Prefix<T>}.delete` | `${Prefix<T>}.restore`]: z.ZodType<{ id: string }>
   }
@@ -133,6 +174,8 @@ export const ENTITY_MUTATIONS = {
   ...entityMutations('jobs'),
   ...entityMutations('jobParts'),
   ...entityMutations('jobLabour'),
+  ...entityMutations('notes'),
+  ...entityMutations('measurements'),
   ...entityMutations('procedureGates'),
   ...entityMutations('procedureRuns'),
 }

@@ -1,38 +1,14 @@
 // The sync wire protocol: push and pull bodies, mutation names and their arguments.
 import { z } from 'zod'
-import { BENCH_TOOL_IDS } from '../bench/tool-schemas'
-import { ENTITY_MUTATIONS, ENTITY_TABLES, entityOf, type EntityTable } from './entities'
+import { ENTITY_MUTATIONS, ENTITY_TABLES, type EntityTable } from './entities'
+import { id } from '../schemas/records'
 
-/** Bumped when a mutation's arguments or a table's shape change incompatibly. */
-export const SYNC_SCHEMA_VERSION = 1
+/** Bumped when a mutation's arguments or a table's shape change incompatibly (2: notes and bench results carry createdBy). */
+export const SYNC_SCHEMA_VERSION = 2
 export const PULL_PAGE_SIZE = 500
 export const MAX_PUSH_MUTATIONS = 500
 
-const id = z.uuid({ message: 'must be an id' })
-const noteText = z.string().max(20_000, { message: 'at most 20,000 characters' })
-const noteTitle = z.string().max(200, { message: 'at most 200 characters' })
-export const NOTE_VISIBILITY = ['internal', 'customer'] as const
-const visibility = z.enum(NOTE_VISIBILITY)
-
 export const MUTATION_ARGS = {
-  'note.create': z.object({ id, jobId: id.nullable(), body: noteText, title: noteTitle.optional(), visibility: visibility.optional() }),
-  'note.setFields': z.object({
-    id,
-    fields: z.object({ body: noteText.optional(), title: noteTitle.optional(), visibility: visibility.optional() }).refine(f => Object.keys(f).length > 0, { message: 'change at least one field' }),
-  }),
-  'note.delete': z.object({ id }),
-  'note.restore': z.object({ id }),
-  'measurement.create': z.object({
-    id,
-    tool: z.enum(BENCH_TOOL_IDS),
-    inputs: z.record(z.string(), z.unknown()),
-    outputs: z.record(z.string(), z.unknown()),
-    engineVersion: z.string().max(20),
-    label: z.string().max(200).optional(),
-    jobId: id.nullable().optional(),
-    rigId: id.nullable().optional(),
-  }),
-  'measurement.delete': z.object({ id }),
   'conflict.resolve': z.object({ id, value: z.unknown() }),
   ...ENTITY_MUTATIONS,
 } as const
@@ -80,8 +56,8 @@ export type PullBody = z.infer<typeof pullBodySchema>
 
 /** Server-written tables the client only reads. */
 export const READ_ONLY_TABLES = ['jobEvents', 'invoices'] as const
-export type SyncedTable = 'notes' | 'measurements' | 'conflicts' | EntityTable | (typeof READ_ONLY_TABLES)[number]
-export const SYNCED_TABLES: readonly SyncedTable[] = ['notes', 'measurements', 'conflicts', ...ENTITY_TABLES, ...READ_ONLY_TABLES]
+export type SyncedTable = 'conflicts' | EntityTable | (typeof READ_ONLY_TABLES)[number]
+export const SYNCED_TABLES: readonly SyncedTable[] = ['conflicts', ...ENTITY_TABLES, ...READ_ONLY_TABLES]
 export interface RowChange {
   table: SyncedTable
   id: string
@@ -97,11 +73,4 @@ export function canonicalJson(value: unknown): string {
   if (Array.isArray(value)) return `[${value.map(canonicalJson).join(',')}]`
   const entries = Object.entries(value as Record<string, unknown>).filter(([, v]) => v !== undefined).sort(([a], [b]) => (a < b ? -1 : 1))
   return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(',')}}`
-}
-
-/** Which record a mutation touches (for rebasing the optimistic view). */
-export function mutationTarget(name: MutationName, args: { id: string }): { table: SyncedTable, id: string } {
-  const entity = entityOf(name)
-  const table: SyncedTable = entity ? entity.table : name.startsWith('note.') ? 'notes' : name.startsWith('measurement.') ? 'measurements' : 'conflicts'
-  return { table, id: args.id }
 }

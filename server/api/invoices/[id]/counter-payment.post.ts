@@ -1,7 +1,7 @@
-import { counterPaymentBody, idParams } from '#shared/utils/jobs/schemas'
+import { counterPaymentBody, idParams } from '#shared/utils/schemas/jobs'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'desk'])
+  const access = await requireActiveShopRole(event, rolesFor('invoices', 'update'))
   const { id } = await validParams(event, idParams)
   const body = await validBody(event, counterPaymentBody)
   return takeCounterPayment(access, id, body)

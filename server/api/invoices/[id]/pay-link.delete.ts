@@ -1,7 +1,7 @@
-import { idParams } from '#shared/utils/jobs/schemas'
+import { idParams } from '#shared/utils/schemas/jobs'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'desk'])
+  const access = await requireActiveShopRole(event, rolesFor('invoices', 'update'))
   const { id } = await validParams(event, idParams)
   await findInvoice(useDb(), access.shopId, id)
   const revoked = await useDb().transaction(async (tx) => {

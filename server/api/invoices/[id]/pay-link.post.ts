@@ -1,9 +1,8 @@
-import { idParams } from '#shared/utils/jobs/schemas'
-import { withRetry } from '../../../utils/sync/errors'
+import { idParams } from '#shared/utils/schemas/jobs'
 
 // A fresh pay link (the old one stops working), e-mailed to the customer and handed to the desk to pass on.
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'desk'])
+  const access = await requireActiveShopRole(event, rolesFor('invoices', 'update'))
   const { id } = await validParams(event, idParams)
   const invoice = await findInvoice(useDb(), access.shopId, id)
   if (invoice.kind !== 'invoice' || invoice.state !== 'sent') {

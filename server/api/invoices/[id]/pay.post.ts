@@ -1,7 +1,7 @@
-import { idParams } from '#shared/utils/jobs/schemas'
+import { idParams } from '#shared/utils/schemas/records'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'desk', 'player'])
+  const access = await requireActiveShopRole(event, rolesFor('invoices', 'pay'))
   const { id } = await validParams(event, idParams)
   const invoice = await visibleInvoice(access, id)
   const started = await startOnlinePayment(access.shopId, invoice.id, access.userId)

@@ -1,8 +1,7 @@
-import { idParams, invoiceCreateBody } from '#shared/utils/jobs/schemas'
-import { withRetry } from '../../../utils/sync/errors'
+import { idParams, invoiceCreateBody } from '#shared/utils/schemas/jobs'
 
 export default defineEventHandler(async (event) => {
-  const access = await requireActiveShopRole(event, ['owner', 'desk'])
+  const access = await requireActiveShopRole(event, rolesFor('invoices', 'create'))
   const { id } = await validParams(event, idParams)
   const { kind } = await validBody(event, invoiceCreateBody)
   const invoice = await withRetry(() => createInvoice(access, id, kind))

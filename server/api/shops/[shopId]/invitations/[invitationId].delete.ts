@@ -3,7 +3,7 @@ import { invitationParamsSchema } from '#shared/utils/schemas/auth'
 
 export default defineEventHandler(async (event) => {
   const { shopId, invitationId } = await validParams(event, invitationParamsSchema)
-  const access = await requireShopRole(event, shopId, ['owner'])
+  const access = await requireShopRole(event, shopId, rolesFor('invitations', 'remove'))
   const db = useDb()
   const where = and(eq(tables.invitations.id, invitationId), eq(tables.invitations.shopId, shopId), isNull(tables.invitations.deletedAt))
   const [inv] = await db.select({ id: tables.invitations.id }).from(tables.invitations).where(where)

@@ -3,7 +3,7 @@ import { shopParamsSchema } from '#shared/utils/schemas/auth'
 
 export default defineEventHandler(async (event) => {
   const { shopId } = await validParams(event, shopParamsSchema)
-  await requireShopRole(event, shopId, ['owner'])
+  await requireShopRole(event, shopId, rolesFor('invitations', 'read'))
   const invitations = await useDb()
     .select({ id: tables.invitations.id, email: tables.invitations.email, role: tables.invitations.role, expiresAt: tables.invitations.expiresAt, createdAt: tables.invitations.createdAt })
     .from(tables.invitations)

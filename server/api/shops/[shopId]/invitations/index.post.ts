@@ -4,7 +4,7 @@ import { inviteSchema, shopParamsSchema } from '#shared/utils/schemas/auth'
 
 export default defineEventHandler(async (event) => {
   const { shopId } = await validParams(event, shopParamsSchema)
-  const access = await requireShopRole(event, shopId, ['owner'])
+  const access = await requireShopRole(event, shopId, rolesFor('invitations', 'create'))
   const { email, role } = await validBody(event, inviteSchema)
   const db = useDb()
   const token = newToken()

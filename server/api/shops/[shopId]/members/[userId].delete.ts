@@ -3,7 +3,7 @@ import { memberParamsSchema } from '#shared/utils/schemas/auth'
 
 export default defineEventHandler(async (event) => {
   const { shopId, userId } = await validParams(event, memberParamsSchema)
-  const access = await requireShopRole(event, shopId, ['owner'])
+  const access = await requireShopRole(event, shopId, rolesFor('members', 'remove'))
   await useDb().transaction(async (tx) => {
     const member = await findMember(tx, shopId, userId)
     if (member.role === 'owner') await assertOwnerRemains(tx, shopId, userId)

@@ -3,7 +3,7 @@ import { memberParamsSchema, roleChangeSchema } from '#shared/utils/schemas/auth
 
 export default defineEventHandler(async (event) => {
   const { shopId, userId } = await validParams(event, memberParamsSchema)
-  const access = await requireShopRole(event, shopId, ['owner'])
+  const access = await requireShopRole(event, shopId, rolesFor('members', 'update'))
   const { role } = await validBody(event, roleChangeSchema)
   await useDb().transaction(async (tx) => {
     const member = await findMember(tx, shopId, userId)
