@@ -115,7 +115,7 @@ describe('idle band', () => {
     [70.001, 'warm'],
     [100, 'warm'],
     [100.001, 'over'],
-  ] as const)('fixed bias at %d %% is %s', (percent, band) => {
+  ] as const)('fixed bias at %d percent is %s', (percent, band) => {
     // common practice, no source (BENCH-MATH: fixed, in range 50-70 %)
     expect(idleBand(percent, 'fixed')).toBe(band)
   })
@@ -129,7 +129,7 @@ describe('idle band', () => {
     [100, 'warm'],
     [100.001, 'over'],
     [140, 'over'],
-  ] as const)('cathode bias at %d %% is %s', (percent, band) => {
+  ] as const)('cathode bias at %d percent is %s', (percent, band) => {
     // common practice, no source (BENCH-MATH: cathode, in range 70-95 %)
     expect(idleBand(percent, 'cathode')).toBe(band)
   })
