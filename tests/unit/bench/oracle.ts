@@ -5,7 +5,9 @@
 // engine cannot be reproduced here by the same slip.
 import { all, create } from 'mathjs'
 
-const math = create(all, { number: 'number' })
+const math = create(all!, { number: 'number' })
+// The typings lag the library: solveODE ships in mathjs but is missing from MathJsInstance.
+const solveODE = (math as unknown as { solveODE: (f: (t: number, y: number[]) => number[], span: number[], y0: number[], options: object) => { y: number[][] } }).solveODE
 
 /** Evaluates an expression with units and returns its value in `unit` ("mA", "W", "Hz"). */
 export function inUnit(expression: string, unit: string): number {
@@ -51,7 +53,7 @@ export function highPassGain(hz: number, ohms: number, farads: number): number {
 
 /** Capacitor voltage after `seconds` through a resistor, by solving C·dV/dt = −V/R numerically. */
 export function solvedDischarge(v0: number, seconds: number, farads: number, ohms: number): number {
-  const { y } = math.solveODE((_t: number, v: number[]) => [-v[0]! / (ohms * farads)], [0, seconds], [v0], { tol: 1e-9 }) as { y: number[][] }
+  const { y } = solveODE((_t, v) => [-v[0]! / (ohms * farads)], [0, seconds], [v0], { tol: 1e-9 })
   return y[y.length - 1]![0]!
 }
 
