@@ -132,7 +132,7 @@ describe('readings against their ranges', () => {
   it('a 6V6 at 400 V reading 28 mV across 1 Ω idles at 76 % of 14 W: outside 50–70 %, so the run stops', () => {
     const out = computeTool('idle-dissipation', parseToolInputs('idle-dissipation', SAMPLE['idle-dissipation']))
     // Source: Ohm's law I = V/R (28 mA cathode), 5 % screen share off (common practice, no source),
-    // P = V·I = (400 − 0.028) V × 26.6 mA = 10.64 W; 10.64 / 14 = 76.0 %. 14 W is the 6V6GTA design-maximum (recalled, unverified).
+    // P = V·I = (400 − 0.028) V × 26.6 mA = 10.64 W; 10.64 / 14 = 76.0 %. 14 W is the 6V6GTA design-maximum (SOURCES.md: a build write-up's table, S2).
     const value = readOutput(out, final.tool!.record.output)! * final.tool!.record.factor!
     expect(value).toBeCloseTo(0.76, 3)
     const verdict = checkRange(final.expect, value)
@@ -148,8 +148,8 @@ describe('readings against their ranges', () => {
     const done: Record<string, StepReading> = Object.fromEntries(steps.map(s => [s.key, needsValue(s) ? { value: 3, at } : { at }]))
     done['drain-time'] = { value: 48.3, at }
     expect(evaluateRun(caps, '', counts, done).canFinish).toBe(true)
-    // Source: the shop's rule that any capacitor above 50 V blocks "done" (50 V is also the usual
-    // touch-safety threshold for DC, recalled, not checked against a standard).
+    // Source: the 50 V touch-safe threshold (SOURCES.md: OSHA 29 CFR 1910.333(a) and NFPA 70E, 50 V;
+    // conservative against IEC 61140's 120 V ripple-free d.c. and IEC 62368-1's 60 V); any capacitor above it blocks "done".
     const hot = { ...done, 'verify:2': { value: 51, at } }
     const e = evaluateRun(caps, '', counts, hot)
     expect(e.canFinish).toBe(false)

@@ -1,6 +1,7 @@
 // The guided procedures, as data: the run screen, the server's checks and the tests all read these.
 import { DEFAULT_IDLE_BANDS } from '../bench/dissipation'
 import { GATE } from './gate-items'
+import { DRAIN_HOLD_MIN_SECONDS, RECHECK_HOLD_SECONDS, TOUCH_SAFE_VOLTS, TOUCH_SAFE_WHY } from './touch-safe'
 import type { ProcedureDefinition, ProcedureStep } from './types'
 
 const STAFF_BENCH = ['owner', 'tech'] as const
@@ -243,7 +244,11 @@ export const PROCEDURES: readonly ProcedureDefinition[] = [
         title: 'Drain each capacitor',
         instruction: 'Clip the drain resistor (with its insulated leads) from ground to each filter capacitor\'s positive terminal in turn, ground lead first, and hold it for the drain time.',
         caution: { level: 'danger', text: 'Ground lead first, then the capacitor; never short a capacitor with a screwdriver.' },
-        hold: { seconds: 10, reason: 'Hold the drain resistor on for the drain time.', fromStep: 'drain-time' },
+        hold: {
+          seconds: DRAIN_HOLD_MIN_SECONDS,
+          reason: `Hold the drain resistor on for the drain time Cap drain worked out, and never less than ${DRAIN_HOLD_MIN_SECONDS} seconds (the minimum is common practice, no source).`,
+          fromStep: 'drain-time',
+        },
         confirm: 'Every filter capacitor has been drained through the resistor.',
       },
       {
@@ -251,17 +256,20 @@ export const PROCEDURES: readonly ProcedureDefinition[] = [
         title: 'Verify each capacitor',
         repeat: 'cap',
         instruction: 'Meter on DC volts: measure from ground to this capacitor\'s positive terminal.',
+        caution: { level: 'danger', text: `Touch only at ${TOUCH_SAFE_VOLTS} V or less. ${TOUCH_SAFE_WHY}` },
         reading: { label: 'Residual voltage', dimension: 'V', unit: 'V' },
-        // The issue's own limit; 50 V DC is also where common low-voltage safety limits start (recalled, verify against your local code).
-        expect: { max: 50, reason: 'Still above 50 V: do not touch. Drain it again and measure again.' },
+        expect: { max: TOUCH_SAFE_VOLTS, reason: `Still above ${TOUCH_SAFE_VOLTS} V: do not touch. Drain it again and measure again.` },
       },
       {
         id: 'recheck',
         title: 'Check again after a minute',
         instruction: 'Residual charge can come back as the capacitor relaxes. Measure the highest-voltage capacitor again.',
-        hold: { seconds: 60, reason: 'Wait 1 minute for any charge to return.' },
+        hold: {
+          seconds: RECHECK_HOLD_SECONDS,
+          reason: `Wait ${RECHECK_HOLD_SECONDS / 60} minute for any charge to return (common practice, no source: no rule for servicing tube amps was found).`,
+        },
         reading: { label: 'Highest reading', dimension: 'V', unit: 'V' },
-        expect: { max: 50, reason: 'The charge came back above 50 V: drain again and keep the resistor on longer.' },
+        expect: { max: TOUCH_SAFE_VOLTS, reason: `The charge came back above ${TOUCH_SAFE_VOLTS} V: drain again and keep the resistor on longer.` },
       },
     ],
   },

@@ -1,8 +1,10 @@
+import { SOURCE_CLASS_SUFFIX } from './sources'
+
 export type RatingSystem = 'design-centre' | 'design-maximum' | 'absolute-maximum'
 
 export interface TubeFigures {
   maxPlateWatts: number
-  /** null where the sheet gives no separate screen rating. */
+  /** null where no screen figure is stored; the entry's notes say why. */
   maxScreenWatts: number | null
   maxPlateVolts: number
   heater: string
@@ -22,18 +24,19 @@ export const TUBE_FIGURES: readonly TubeFigure[] = Object.freeze([
 export interface TubeSpec extends TubeFigures {
   id: string
   name: string
-  /** Where each figure comes from; a shop entry cites its own sheet. */
+  /** Where each figure comes from, ending with its backing class (see ./sources). */
   sources: Record<TubeFigure, string>
+  /** A word shown beside a figure ("per section") or instead of a missing one ("published, not found here"). */
+  notes?: Partial<Record<TubeFigure, string>>
 }
 
-// No data sheets were at hand when this table was written: every figure is
-// recalled and marked so until someone checks it against the cited sheet.
-const RECALLED = '(recalled, unverified)'
+// What each figure stands on: see SOURCE_CLASS_EXPLAINED. Every source string ends with its
+// class, so the Tubes screen can show it beside the figure and a test can check it.
+const S1 = SOURCE_CLASS_SUFFIX.S1
+const S2 = SOURCE_CLASS_SUFFIX.S2
+const M = SOURCE_CLASS_SUFFIX.M
 
-function allFrom(source: string): Record<TubeFigure, string> {
-  const cited = `${source} ${RECALLED}`
-  return { maxPlateWatts: cited, maxScreenWatts: cited, maxPlateVolts: cited, heater: cited, ratingSystem: cited }
-}
+const ENCYCLOPEDIA = (article: string) => `as cited in the encyclopedia's ${article} article`
 
 const ENTRIES: TubeSpec[] = [
   {
@@ -44,7 +47,13 @@ const ENTRIES: TubeSpec[] = [
     maxPlateVolts: 315,
     heater: '6.3 V 0.45 A',
     ratingSystem: 'design-centre',
-    sources: allFrom('RCA 6V6GT data sheet'),
+    sources: {
+      maxPlateWatts: `6V6GT sheet, 12 W design centre, as used in a forum post's worked example ${S2}`,
+      maxScreenWatts: `6V6GT sheet, not found here ${M}`,
+      maxPlateVolts: `6V6GT sheet, 315 V design centre, not found here; 350 V is the 6V6GTA's figure ${M}`,
+      heater: `6V6GT sheet, not found here ${M}`,
+      ratingSystem: `6V6GT sheet's rating system, not found here ${M}`,
+    },
   },
   {
     id: '6v6gta',
@@ -54,7 +63,13 @@ const ENTRIES: TubeSpec[] = [
     maxPlateVolts: 350,
     heater: '6.3 V 0.45 A',
     ratingSystem: 'design-maximum',
-    sources: allFrom('RCA 6V6GTA data sheet'),
+    sources: {
+      maxPlateWatts: `6V6GTA ratings table in a build write-up (no maker named) ${S2}`,
+      maxScreenWatts: `6V6GTA ratings table in a build write-up (no maker named) ${S2}`,
+      maxPlateVolts: `6V6GTA ratings table in a build write-up (no maker named); screen 315 V ${S2}`,
+      heater: `6V6GTA ratings table in a build write-up (no maker named) ${S2}`,
+      ratingSystem: `6V6GTA sheet's rating system, not found here ${M}`,
+    },
   },
   {
     id: 'el84',
@@ -64,7 +79,13 @@ const ENTRIES: TubeSpec[] = [
     maxPlateVolts: 300,
     heater: '6.3 V 0.76 A',
     ratingSystem: 'design-centre',
-    sources: allFrom('Philips EL84 data sheet'),
+    sources: {
+      maxPlateWatts: `EL84 (6BQ5) makers' data, ${ENCYCLOPEDIA('Russian-language EL84')} ${S1}`,
+      maxScreenWatts: `EL84 (6BQ5) makers' data, ${ENCYCLOPEDIA('Russian-language EL84')} ${S1}`,
+      maxPlateVolts: `EL84 (6BQ5) makers' data, ${ENCYCLOPEDIA('Russian-language EL84')}; screen 300 V, anode current 65 mA ${S1}`,
+      heater: `EL84 (6BQ5) makers' data, ${ENCYCLOPEDIA('Russian-language EL84')} ${S1}`,
+      ratingSystem: `EL84 (6BQ5) makers' data, ${ENCYCLOPEDIA('Russian-language EL84')} ${S1}`,
+    },
   },
   {
     id: '6l6gc',
@@ -74,7 +95,13 @@ const ENTRIES: TubeSpec[] = [
     maxPlateVolts: 500,
     heater: '6.3 V 0.9 A',
     ratingSystem: 'design-maximum',
-    sources: allFrom('GE 6L6GC data sheet'),
+    sources: {
+      maxPlateWatts: `General Electric, Essential Characteristics (1973), ${ENCYCLOPEDIA('6L6')}; a 2018 magazine article on choosing power tubes also gives 30 W (the original 6L6: 19 W) ${S1}`,
+      maxScreenWatts: `6L6GC sheet, not found here ${M}`,
+      maxPlateVolts: `General Electric, Essential Characteristics (1973), ${ENCYCLOPEDIA('6L6')}; the screen's 450 V is from memory ${S1}`,
+      heater: `General Electric, Essential Characteristics (1973), ${ENCYCLOPEDIA('6L6')} ${S1}`,
+      ratingSystem: `6L6GC sheet's rating system, not found here ${M}`,
+    },
   },
   {
     id: '5881',
@@ -84,7 +111,13 @@ const ENTRIES: TubeSpec[] = [
     maxPlateVolts: 400,
     heater: '6.3 V 0.9 A',
     ratingSystem: 'design-centre',
-    sources: allFrom('Tung-Sol 5881 data sheet'),
+    sources: {
+      maxPlateWatts: `5881 sheet, not found here (the type was introduced in "5881, a new beam power tube", Radio & Television News, Sept 1950) ${M}`,
+      maxScreenWatts: `5881 sheet, not found here ${M}`,
+      maxPlateVolts: `5881 sheet, not found here ${M}`,
+      heater: `5881 sheet, not found here ${M}`,
+      ratingSystem: `5881 sheet, not found here ${M}`,
+    },
   },
   {
     id: 'el34',
@@ -94,7 +127,13 @@ const ENTRIES: TubeSpec[] = [
     maxPlateVolts: 800,
     heater: '6.3 V 1.5 A',
     ratingSystem: 'design-centre',
-    sources: allFrom('Telefunken EL34 data sheet'),
+    sources: {
+      maxPlateWatts: `EL34 (6CA7) makers' sheets, quoted in forum posts ${S2}`,
+      maxScreenWatts: `EL34 sheet, not found here ${M}`,
+      maxPlateVolts: `one maker's EL34 sheet, quoted in a forum post; 750 V is reported for another maker: the figure depends on the maker ${S2}`,
+      heater: `EL34 (6CA7) makers' sheets, quoted in forum posts ${S2}`,
+      ratingSystem: `EL34 sheet, not found here ${M}`,
+    },
   },
   {
     id: 'kt66',
@@ -104,9 +143,13 @@ const ENTRIES: TubeSpec[] = [
     maxPlateVolts: 500,
     heater: '6.3 V 1.27 A',
     ratingSystem: 'design-centre',
+    notes: { maxScreenWatts: 'published, not found here' },
     sources: {
-      ...allFrom('GEC KT66 data sheet'),
-      maxScreenWatts: `GEC KT66 data sheet: no separate screen dissipation figure recalled ${RECALLED}`,
+      maxPlateWatts: `AWV Super Radiotron Valve Manual (1962) and Iliffe Radio Valve Data, 8th ed. (1966), ${ENCYCLOPEDIA('KT66')} ${S1}`,
+      maxScreenWatts: `KT66 screen rating: published in the makers' sheets, not found here, so no figure is stored ${M}`,
+      maxPlateVolts: `AWV Super Radiotron Valve Manual (1962) and Iliffe Radio Valve Data, 8th ed. (1966), ${ENCYCLOPEDIA('KT66')} ${S1}`,
+      heater: `AWV Super Radiotron Valve Manual (1962) and Iliffe Radio Valve Data, 8th ed. (1966), ${ENCYCLOPEDIA('KT66')} ${S1}`,
+      ratingSystem: `KT66 sheet, not found here ${M}`,
     },
   },
   {
@@ -117,7 +160,13 @@ const ENTRIES: TubeSpec[] = [
     maxPlateVolts: 800,
     heater: '6.3 V 1.6 A',
     ratingSystem: 'design-centre',
-    sources: allFrom('GEC KT88 data sheet, original rating'),
+    sources: {
+      maxPlateWatts: `KT88 sheet, original 35 W rating, not found here (the KT88 outrates the 6550, ${ENCYCLOPEDIA('KT88')}) ${M}`,
+      maxScreenWatts: `KT88 sheet, not found here ${M}`,
+      maxPlateVolts: `KT88 sheet, not found here ${M}`,
+      heater: `KT88 sheet, not found here; the KT88S variant's Philips sheet gives about 1.6 A ${M}`,
+      ratingSystem: `KT88 sheet, not found here ${M}`,
+    },
   },
   {
     id: 'kt88-42w',
@@ -127,7 +176,13 @@ const ENTRIES: TubeSpec[] = [
     maxPlateVolts: 800,
     heater: '6.3 V 1.6 A',
     ratingSystem: 'design-maximum',
-    sources: allFrom('GEC KT88 data sheet, later rating'),
+    sources: {
+      maxPlateWatts: `KT88 sheet, later 42 W rating, not found here (the KT88S variant reads 50 W absolute maximum in Philips data) ${M}`,
+      maxScreenWatts: `KT88 sheet, not found here ${M}`,
+      maxPlateVolts: `KT88 sheet, not found here ${M}`,
+      heater: `KT88 sheet, not found here; the KT88S variant's Philips sheet gives about 1.6 A ${M}`,
+      ratingSystem: `KT88 sheet, not found here ${M}`,
+    },
   },
   {
     id: '6550',
@@ -137,11 +192,56 @@ const ENTRIES: TubeSpec[] = [
     maxPlateVolts: 600,
     heater: '6.3 V 1.6 A',
     ratingSystem: 'design-centre',
-    sources: allFrom('Tung-Sol 6550 data sheet'),
+    sources: {
+      maxPlateWatts: `original 6550 (Tung-Sol, 1955, ${ENCYCLOPEDIA('6550')}); its figures were not found here ${M}`,
+      maxScreenWatts: `original 6550 sheet, not found here ${M}`,
+      maxPlateVolts: `original 6550 sheet, not found here ${M}`,
+      heater: `original 6550 sheet, not found here ${M}`,
+      ratingSystem: `original 6550 sheet, not found here ${M}`,
+    },
+  },
+  {
+    id: '6550a',
+    name: '6550A',
+    maxPlateWatts: 42,
+    maxScreenWatts: 6,
+    maxPlateVolts: 660,
+    heater: '6.3 V 1.6 A',
+    ratingSystem: 'design-maximum',
+    sources: {
+      maxPlateWatts: `General Electric 6550-A product information 4-72 (April 1972), quoted in a public code comment ${S2}`,
+      maxScreenWatts: `6550A sheet, not found here ${M}`,
+      maxPlateVolts: `6550A sheet, not found here ${M}`,
+      heater: `6550A sheet, not found here ${M}`,
+      ratingSystem: `General Electric 6550-A product information 4-72 (April 1972), quoted in a public code comment ${S2}`,
+    },
+  },
+  {
+    id: '12ax7',
+    name: '12AX7',
+    maxPlateWatts: 1,
+    maxScreenWatts: null,
+    maxPlateVolts: 300,
+    heater: '12.6 V 0.15 A or 6.3 V 0.3 A',
+    ratingSystem: 'design-centre',
+    notes: { maxPlateWatts: 'per section', maxScreenWatts: 'no screen (triode)' },
+    sources: {
+      maxPlateWatts: `Sylvania 12AX7 sheet, ${ENCYCLOPEDIA('12AX7')}; the later 12AX7A's 1.2 W and 330 V are from memory ${S1}`,
+      maxScreenWatts: `a triode has no screen grid; Sylvania 12AX7 sheet, ${ENCYCLOPEDIA('12AX7')} ${S1}`,
+      maxPlateVolts: `Sylvania 12AX7 sheet, ${ENCYCLOPEDIA('12AX7')} ${S1}`,
+      heater: `Sylvania 12AX7 sheet, ${ENCYCLOPEDIA('12AX7')}: series or parallel heater halves ${S1}`,
+      ratingSystem: `12AX7 sheet's rating system, not found here ${M}`,
+    },
   },
 ]
 
-export const BUILTIN_TUBES: readonly Readonly<TubeSpec>[] = Object.freeze(ENTRIES.map(t => Object.freeze(t)))
+function deepFreeze(t: TubeSpec): Readonly<TubeSpec> {
+  Object.freeze(t.sources)
+  if (t.notes) Object.freeze(t.notes)
+  return Object.freeze(t)
+}
+
+export const BUILTIN_TUBES: readonly Readonly<TubeSpec>[] = Object.freeze(ENTRIES.map(deepFreeze))
 
 export function findBuiltinTube(id: string): TubeSpec | undefined {
   return BUILTIN_TUBES.find(t => t.id === id)

@@ -1,10 +1,12 @@
 import type { LibraryTube } from '../../types/tubes'
-import { BUILTIN_TUBES, TUBE_FIGURES } from './builtin'
+import { BUILTIN_TUBES } from './builtin'
 import type { TubeSpec } from './builtin'
 
-/** A built-in spec in library form; its per-figure sources fold into one line when they agree. */
+/**
+ * A built-in spec in library form. `source` is the plate rating's source, the figure the bench
+ * tools use; every figure's own source (with its backing class) travels in `sources`.
+ */
 export function libraryTubeFromBuiltin(t: Readonly<TubeSpec>): LibraryTube {
-  const distinct = [...new Set(TUBE_FIGURES.map(f => t.sources[f]))]
   return {
     id: t.id,
     name: t.name,
@@ -13,7 +15,9 @@ export function libraryTubeFromBuiltin(t: Readonly<TubeSpec>): LibraryTube {
     maxPlateVolts: t.maxPlateVolts,
     heater: t.heater,
     ratingSystem: t.ratingSystem,
-    source: distinct.join('; '),
+    source: `Plate rating: ${t.sources.maxPlateWatts}`,
+    sources: { ...t.sources },
+    ...(t.notes ? { notes: { ...t.notes } } : {}),
     kind: 'builtin',
   }
 }

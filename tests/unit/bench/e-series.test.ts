@@ -79,6 +79,14 @@ describe('nearestPreferred', () => {
     expect(nearestPreferred(9.9, 'E24')).toBe(10)
   })
 
+  it('the 12AX7\'s 1667 Ω cathode resistor: 1.8 kΩ in E12, 1.6 kΩ in E24', () => {
+    // Source: SOURCES.md 12AX7 (−2 V at 1.2 mA → 1666.7 Ω, S1) and IEC 60063 lists. By hand, log10 distances:
+    // E12 1500: log10(1666.7 / 1500) = 0.0458; 1800: log10(1800 / 1666.7) = 0.0334 → 1800.
+    // E24 1600: log10(1666.7 / 1600) = 0.0177; 1800: 0.0334 → 1600
+    expect(nearestPreferred(2 / 0.0012, 'E12')).toBe(1800)
+    expect(nearestPreferred(2 / 0.0012, 'E24')).toBe(1600)
+  })
+
   it('compares on a log scale, not a linear one', () => {
     // 82 and 100 straddle 90.5: linear midpoint is 91, log midpoint is √8200 ≈ 90.55.
     // Source: IEC 60063 (lists above)

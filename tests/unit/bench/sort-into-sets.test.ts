@@ -1,7 +1,8 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { sortIntoSets } from '../../../shared/utils/bench/index'
+import { sortIntoSets, withinTolerance } from '../../../shared/utils/bench/index'
 import type { TubeReading } from '../../../shared/utils/bench/index'
+import { exactlyWithin } from './oracle'
 
 // Readings typed to a few digits land exactly on the tolerance edge; the match
 // rule allows this much floating-point slack on the spread.
@@ -35,6 +36,33 @@ function bruteForceBest(readings: TubeReading[], setSize: number, tolerance: num
   return { sets: bestSets, spread: bestSpread }
 }
 
+describe('withinTolerance', () => {
+  it('a pair at 40 and 42 mA is matched within 5 %, at 40 and 42.01 mA it is not', () => {
+    // Source: BENCH-MATH, a set is matched when its largest reading is at most (1 + tolerance) times its smallest.
+    // By hand: 42 / 40 = 1.05 exactly; 42.01 / 40 = 1.05025
+    expect(withinTolerance(0.040, 0.042, 0.05)).toBe(true)
+    expect(withinTolerance(0.040, 0.04201, 0.05)).toBe(false)
+  })
+
+  it('the 6550A pair\'s 75 mA each is a perfect match at any tolerance', () => {
+    // Source: SOURCES.md, 6550A 150 mA for the pair (S2): 75 / 75 − 1 = 0
+    expect(withinTolerance(0.075, 0.075, 0)).toBe(true)
+  })
+
+  it('agrees with exact rational arithmetic for readings in whole microamps', () => {
+    // Source: mathjs oracle, fractions (no floating point)
+    fc.assert(fc.property(
+      fc.integer({ min: 20_000, max: 80_000 }),
+      fc.integer({ min: 0, max: 8_000 }),
+      fc.integer({ min: 0, max: 15 }),
+      (small, extra, percent) => {
+        const large = small + extra
+        expect(withinTolerance(small / 1e6, large / 1e6, percent / 100)).toBe(exactlyWithin(small, large, percent))
+      },
+    ), { numRuns: 500 })
+  })
+})
+
 describe('sortIntoSets', () => {
   it('pairs close readings and leaves the odd one out', () => {
     // Source: definition of a matched set (largest ≤ (1 + tolerance) · smallest)
@@ -47,8 +75,9 @@ describe('sortIntoSets', () => {
     ], 2, 0.05)
     expect(result.sets.map(s => s.ids)).toEqual([['a', 'c'], ['b', 'd']])
     expect(result.unmatched).toEqual(['e'])
+    // By hand: mean (30.0 + 30.5) / 2 = 30.25 mA; spread 30.5 / 30.0 − 1 = 0.016667
     expect(result.sets[0]!.meanAmps).toBeCloseTo(0.03025, 12)
-    expect(result.sets[0]!.spreadFraction).toBeCloseTo(0.0305 / 0.03 - 1, 12)
+    expect(result.sets[0]!.spreadFraction).toBeCloseTo(0.016667, 6)
   })
 
   it('prefers more sets over tighter ones', () => {
