@@ -1,21 +1,12 @@
 // The invoice behind an e-mailed pay link: no account, no device storage, only the token.
+import type { InvoiceRecord } from '#shared/types/records'
+
+type PaidInvoiceFields = 'number' | 'lines' | 'partsCents' | 'labourCents' | 'subtotalCents' | 'taxRateBasisPoints' | 'taxCents' | 'totalCents' | 'currency' | 'issuedAt' | 'paidAt' | 'paidWith'
+
+/** What the pay route answers: the shop's contact and the invoice (never a draft). */
 export interface PayLinkInvoice {
   shop: { name: string, address: string, phone: string, email: string }
-  invoice: {
-    number: number
-    state: 'sent' | 'paid' | 'void'
-    lines: { kind: 'part' | 'labour', description: string, quantity: number, unitCents: number, totalCents: number }[]
-    partsCents: number
-    labourCents: number
-    subtotalCents: number
-    taxRateBasisPoints: number
-    taxCents: number
-    totalCents: number
-    currency: string
-    issuedAt: string | null
-    paidAt: string | null
-    paidWith: 'online' | 'cash' | 'card' | null
-  }
+  invoice: Pick<InvoiceRecord, PaidInvoiceFields> & { state: Exclude<InvoiceRecord['state'], 'draft'> }
   paymentPending: boolean
   expiresAt: string
 }

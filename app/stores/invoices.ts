@@ -5,8 +5,6 @@ export const NEEDS_CONNECTION = 'This needs a connection to the shop server. You
 const PAY_POLL_MS = 2_000
 const PAY_POLL_LIMIT = 90
 
-/** Turns a failed request into words: offline, or what the server said. */
-export const problemOf = (e: unknown) => (statusOf(e) === undefined ? NEEDS_CONNECTION : messageOf(e))
 
 /**
  * Estimates and invoices. The server writes them (numbers, totals, payment), so the list comes

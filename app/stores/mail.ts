@@ -15,7 +15,7 @@ export const useMailStore = defineStore('mail', () => {
       items.value = (await $fetch<{ items: SentMail[] }>('/api/mail')).items
     }
     catch (e) {
-      error.value = problemOf(e)
+      error.value = wordsOf(e)
     }
     finally {
       loading.value = false

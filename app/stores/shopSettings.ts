@@ -43,7 +43,7 @@ export const useShopSettingsStore = defineStore('shopSettings', () => {
       keep(await $fetch<ShopSettings>('/api/shop/settings'))
     }
     catch (e) {
-      error.value = problemOf(e)
+      error.value = wordsOf(e)
     }
   }
 

@@ -42,7 +42,7 @@ describe('notes and bench results as ordinary synced records', () => {
     // The owner's device sees the note with its author, as the notebook shows it.
     const d = await device(owner, shopId)
     await d.engine.pull()
-    expect(await d.db.notes.get(id)).toMatchObject({ body: 'Hum at idle: filter caps replaced.', createdBy: techId, authorId: techId, pending: 0 })
+    expect(await d.db.notes.get(id)).toMatchObject({ body: 'Hum at idle: filter caps replaced.', createdBy: techId, pending: 0 })
 
     expect(statuses(await push(owner, shopId, [{ name: 'note.delete', args: { id }, baseVersion: await seen('notes', id) }]))).toEqual(['applied'])
     expect((await sql('select deleted_at from notes where id = ?', [id]))[0].deleted_at).not.toBeNull()
