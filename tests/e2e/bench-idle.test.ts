@@ -1,20 +1,11 @@
 import { mkdirSync } from 'node:fs'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { launch } from './helpers/browser'
-import type { Browser, Page } from 'playwright-core'
+import { describe, expect, it } from 'vitest'
+import { browserForFile } from './helpers/browser'
+import type { Page } from 'playwright-core'
 
 const BASE = (process.env.TW_TEST_URL ?? '').replace(/\/$/, '')
 const PASSWORD = process.env.TW_DEMO_PASSWORD ?? 'tubewright-demo'
-let browser: Browser
-
-beforeAll(async () => {
-  if (!BASE) throw new Error('TW_TEST_URL is not set: run through npm test (scripts/test.mjs).')
-  browser = await launch()
-})
-
-afterAll(async () => {
-  await browser?.close()
-})
+const browser = browserForFile()
 
 async function signedInPage(theme: 'dark' | 'light'): Promise<Page> {
   const context = await browser.newContext({ viewport: { width: 360, height: 800 }, deviceScaleFactor: 2 })

@@ -1,9 +1,9 @@
 import { existsSync, readdirSync, readFileSync } from 'node:fs'
 import { join } from 'node:path'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
+import { describe, expect, it } from 'vitest'
+import type { Page } from 'playwright-core'
 import { PDFParse } from 'pdf-parse'
-import { apiLogin, BASE, hydrated, launch, phone } from './helpers/browser'
+import { BASE, hydrated, browserForFile, pageAs } from './helpers/browser'
 
 const MAIL_DIR = process.env.TW_TEST_MAIL_DIR ?? ''
 const PLAYER = 'dana@players.example'
@@ -11,23 +11,9 @@ const SERIAL = `LW-6V6-${Date.now().toString().slice(-6)}`
 // A 1×1 PNG (one opaque pixel), built here so the test carries no binary file.
 const PNG = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==', 'base64')
 
-let browser: Browser
-beforeAll(async () => {
-  if (!process.env.TW_TEST_URL) throw new Error('TW_TEST_URL is not set: run through npm test (scripts/test.mjs).')
-  browser = await launch()
-})
-afterAll(async () => {
-  await browser?.close()
-})
+const browser = browserForFile()
 
-async function as(email: string, path: string): Promise<Page> {
-  const context = await phone(browser)
-  const page = await context.newPage()
-  await apiLogin(page, email)
-  await page.goto(`${BASE}${path}`)
-  await hydrated(page)
-  return page
-}
+const as = (email: string, path: string) => pageAs(browser, email, path)
 
 /** Waits until this device has sent everything and heard back from the server. */
 async function synced(page: Page) {

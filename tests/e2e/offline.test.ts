@@ -1,16 +1,8 @@
-import { mkdirSync } from 'node:fs'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
-import { apiLogin, BASE, hydrated, launch, phone } from './helpers/browser'
+import { describe, expect, it } from 'vitest'
+import type { Page } from 'playwright-core'
+import { apiLogin, BASE, hydrated, phone, browserForFile } from './helpers/browser'
 
-let browser: Browser
-beforeAll(async () => {
-  browser = await launch()
-  mkdirSync('tests/artifacts', { recursive: true })
-})
-afterAll(async () => {
-  await browser?.close()
-})
+const browser = browserForFile({ artifacts: true })
 
 const chip = (page: Page, state?: string) => page.locator(`[data-testid="sync-chip"]${state ? `[data-state="${state}"]` : ''}`)
 

@@ -1,18 +1,9 @@
-import { mkdirSync } from 'node:fs'
 import { randomUUID } from 'node:crypto'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
-import { apiLogin, BASE, hydrated, launch, phone } from './helpers/browser'
+import { describe, expect, it } from 'vitest'
+import type { Page } from 'playwright-core'
+import { apiLogin, BASE, hydrated, phone, browserForFile } from './helpers/browser'
 
-let browser: Browser
-beforeAll(async () => {
-  if (!process.env.TW_TEST_URL) throw new Error('TW_TEST_URL is not set: run through npm test (scripts/test.mjs).')
-  browser = await launch()
-  mkdirSync('tests/artifacts', { recursive: true })
-})
-afterAll(async () => {
-  await browser?.close()
-})
+const browser = browserForFile({ artifacts: true })
 
 const chip = (page: Page, state: string) => page.locator(`[data-testid="sync-chip"][data-state="${state}"]`)
 const next = (page: Page) => page.getByTestId('step-next').click()

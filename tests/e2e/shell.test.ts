@@ -1,16 +1,7 @@
-import { mkdirSync } from 'node:fs'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser } from 'playwright-core'
-import { BASE, DEMO_PASSWORD, hydrated, launch, phone } from './helpers/browser'
+import { describe, expect, it } from 'vitest'
+import { BASE, DEMO_PASSWORD, hydrated, phone, browserForFile } from './helpers/browser'
 
-let browser: Browser
-beforeAll(async () => {
-  browser = await launch()
-  mkdirSync('tests/artifacts', { recursive: true })
-})
-afterAll(async () => {
-  await browser?.close()
-})
+const browser = browserForFile({ artifacts: true })
 
 describe('the app shell at 360 x 800', () => {
   it('sends a signed-out visitor to sign in, then signs the demo tech in and shows the shell', async () => {

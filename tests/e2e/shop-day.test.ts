@@ -2,29 +2,16 @@ import { existsSync, readdirSync, readFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { randomUUID } from 'node:crypto'
 import { SYNC_SCHEMA_VERSION } from '../../shared/utils/sync/protocol'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { APIRequestContext, Browser, Page } from 'playwright-core'
-import { apiLogin, BASE, hydrated, launch, phone } from './helpers/browser'
+import { describe, expect, it } from 'vitest'
+import type { APIRequestContext, Page } from 'playwright-core'
+import { BASE, hydrated, phone, browserForFile, pageAs } from './helpers/browser'
 
 const MAIL_DIR = process.env.TW_TEST_MAIL_DIR ?? ''
 const SHOP_ID = '6f1c2a10-0000-4000-8000-000000000001'
 
-let browser: Browser
-beforeAll(async () => {
-  if (!process.env.TW_TEST_URL) throw new Error('TW_TEST_URL is not set: run through npm test (scripts/test.mjs).')
-  browser = await launch()
-})
-afterAll(async () => {
-  await browser?.close()
-})
+const browser = browserForFile()
 
-async function as(email: string, path: string): Promise<Page> {
-  const page = await (await phone(browser)).newPage()
-  await apiLogin(page, email)
-  await page.goto(`${BASE}${path}`)
-  await hydrated(page)
-  return page
-}
+const as = (email: string, path: string) => pageAs(browser, email, path)
 
 const synced = (page: Page) => page.locator('header [data-testid="item-sync-state"][data-state="synced"]').first().waitFor({ timeout: 30_000 })
 
