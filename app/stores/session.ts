@@ -2,6 +2,7 @@ import { defineStore } from 'pinia'
 import type { MePayload } from '#shared/types/me'
 import type { Role } from '#shared/utils/roles'
 import { STORAGE_KEYS } from '~/utils/storage-keys'
+import { can as canDo, type RecordKind, type Verb } from '#shared/utils/permissions'
 
 function readCached(): MePayload | null {
   try {
@@ -75,6 +76,8 @@ export const useSessionStore = defineStore('session', () => {
   }
 
   const can = (...roles: Role[]) => !!role.value && roles.includes(role.value)
+  /** What the permissions table (the server's own) lets this person do in the active shop. */
+  const may = (record: RecordKind, verb: Verb, opts: { mine?: boolean } = {}) => !!role.value && canDo(role.value, record, verb, opts)
 
-  return { me, checked, reachable, user, activeShop, role, signedIn, refresh, signIn, register, signOut, switchShop, createShop, acceptInvitation, can }
+  return { me, checked, reachable, user, activeShop, role, signedIn, refresh, signIn, register, signOut, switchShop, createShop, acceptInvitation, can, may }
 })
