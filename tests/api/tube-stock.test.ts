@@ -85,7 +85,7 @@ describe('tube stock: who may see and change it', () => {
 
     expect((await desk.post('/api/stock/lots', { tubeType: 'el34' })).status).toBe(403)
     expect((await desk.patch(`/api/stock/lots/${made.body.id}`, { notes: 'desk' })).status).toBe(403)
-    expect((await desk.delete(`/api/stock/tubes/${tube.body.id}`)).status).toBe(403)
+    expect((await desk.del(`/api/stock/tubes/${tube.body.id}`)).status).toBe(403)
 
     const unknown = await tech.post('/api/stock/lots', { tubeType: 'no-such-tube' })
     expect(unknown.status).toBe(400)
@@ -95,8 +95,8 @@ describe('tube stock: who may see and change it', () => {
     expect(positiveGrid.body.message).toMatch(/zero or negative/)
     const noLot = await tech.post('/api/stock/tubes', { lotId: randomUUID(), label: 'X-03', plateVolts: 400, gridVolts: -40, amps: 0.05, testedOn: today })
     expect(noLot.status).toBe(400)
-    expect(noLot.body.message).toMatch(/lot not found/)
-    expect((await tech.delete(`/api/stock/tubes/${tube.body.id}`)).status).toBe(200)
+    expect(noLot.body.message).toMatch(/Lot not found in this shop/)
+    expect((await tech.del(`/api/stock/tubes/${tube.body.id}`)).status).toBe(200)
   })
 
   it('a player gets 403 from every stock route and pulls none of it; another shop gets 404', async () => {
@@ -221,8 +221,8 @@ describe('fitting a set to a job', () => {
     const [closed] = await sql<{ id: string }>('select id from jobs where shop_id = ? and status = \'closed\' limit 1', [DEMO.shopId])
     const r = await tech.post(`/api/stock/sets/${pair.setId}/fit`, { jobId: closed!.id })
     expect(r.status).toBe(400)
-    expect(r.body.message).toMatch(/the job is closed/)
-    expect((await tech.post(`/api/stock/sets/${pair.setId}/fit`, { jobId: randomUUID() })).body.message).toMatch(/job not found in this shop/)
+    expect(r.body.message).toMatch(/The job is closed/)
+    expect((await tech.post(`/api/stock/sets/${pair.setId}/fit`, { jobId: randomUUID() })).body.message).toMatch(/Job not found in this shop/)
     expect((await sql('select status from matched_sets where id = ?', [pair.setId]))[0].status).toBe('in-stock')
     expect((await tech.post(`/api/stock/sets/${pair.setId}/fit`, { jobId: 'not-an-id' })).status).toBe(400)
   })
