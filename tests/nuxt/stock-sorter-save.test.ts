@@ -65,13 +65,22 @@ describe('Save these sets into stock', () => {
     expect(Object.fromEntries(tubes.map(t => [t.label, t.setId]))).toEqual({ 'A1': s1!.id, 'A2': s1!.id, 'A3': s2!.id, 'A4': s2!.id, 'L1-05': null })
   })
 
-  it('says a sort into sixes cannot go into stock, and the desk is not offered the save', async () => {
+  it('says a sort into sixes cannot go into stock', async () => {
     await offlineShop('tech')
     const w = await mountSuspended(BenchTubeSorter)
     await type(w, '#sorter-readings', 'A1 40\nA2 40\nA3 40\nA4 40\nA5 40\nA6 40')
     await choose(w, 'Sixes')
     expect(testid(w, 'sorter-stock').text()).toContain('Stock keeps pairs and quads')
     expect(testid(w, 'sorter-stock-open').exists()).toBe(false)
+  })
+
+  it('is not offered to a player, whose sorter is their own', async () => {
+    await offlineShop('player')
+    const w = await mountSuspended(BenchTubeSorter)
+    await type(w, '#sorter-readings', 'A1 40\nA2 41')
+    await choose(w, 'Pairs')
+    expect(testid(w, 'sets').findAll('li')).toHaveLength(1)
+    expect(testid(w, 'sorter-stock').exists()).toBe(false)
   })
 })
 
@@ -83,6 +92,7 @@ describe('Fit a matched set from stock', () => {
     const stock = useStockStore()
     const s1 = stock.sets.find(s => s.label === 'S-1')!
     const w = await mountSuspended(JobsFitSet, { props: { jobId, currency: 'usd' } })
+    await until(() => w.find('#fit-set').exists(), `the set picker in: ${w.text()}`)
     await w.find('#fit-set').setValue(s1.id)
     await type(w, '#fit-price', '64')
     const before = (await outbox()).length
