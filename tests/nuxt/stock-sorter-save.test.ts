@@ -32,6 +32,7 @@ async function sortAndSave() {
   // A phone keypad has no minus: the grid bias is read as negative.
   await type(w, '#sorter-stock-point-grid', '45')
   await testid(w, 'sorter-stock').find('form').trigger('submit')
+  await until(() => testid(w, 'sorter-stock').text().includes('into stock on this device'), 'the save')
   await until(() => useStockStore().sets.length === 2, 'the two sets in stock')
   return w
 }
