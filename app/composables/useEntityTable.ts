@@ -9,7 +9,7 @@ import { fieldErrors, validateCreate, type FieldErrors } from '~/utils/jobs/chec
 // The device's rows and the schema's records are one shape: this stops compiling if they drift.
 type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false
 const ONE_SHAPE: { [T in EntityTable]: Same<EntityRow<T>, EntityRecords[T]> } = {
-  customers: true, amps: true, jobs: true, jobParts: true, jobLabour: true, notes: true, measurements: true, procedureGates: true, procedureRuns: true,
+  customers: true, amps: true, jobs: true, jobParts: true, jobLabour: true, tubeLots: true, stockTubes: true, matchedSets: true, notes: true, measurements: true, procedureGates: true, procedureRuns: true,
 }
 const INVOICE_SHAPE: Same<InvoiceRow, InvoiceRecord> = true
 void ONE_SHAPE

@@ -1,6 +1,6 @@
 import type { LocalDb } from '~/utils/sync/local-db'
 
-type ShopTable = 'customers' | 'amps' | 'jobs' | 'jobParts' | 'jobLabour' | 'jobEvents' | 'invoices' | 'notes' | 'measurements' | 'procedureGates' | 'procedureRuns'
+type ShopTable = 'customers' | 'amps' | 'jobs' | 'jobParts' | 'jobLabour' | 'tubeLots' | 'stockTubes' | 'matchedSets' | 'jobEvents' | 'invoices' | 'notes' | 'measurements' | 'procedureGates' | 'procedureRuns'
 type RowOf<K extends ShopTable> = LocalDb[K] extends import('dexie').Table<infer R, string> ? R : never
 
 /** Every live (not deleted) row of one table in the active shop, following the device database. */

@@ -106,3 +106,30 @@ export const DEMO_RUNS: DemoRun[] = [
     values: { 'measure-initial:1': 0.43, 'measure-initial:2': 0.45, 'measure-final:1': 0.62, 'measure-final:2': 0.64 },
   },
 ]
+
+/**
+ * The shop's tube stock: two invented lots read on the shop's tester, and one matched quad of
+ * 6L6GC in stock (the four closest readings of lot 1). Readings in SI.
+ */
+const stockTube = (n: number, lotId: string, label: string, plateVolts: number, gridVolts: number, mA: number, gm: number | null, setId: string | null = null) =>
+  ({ id: idOf('011', n), lotId, label, plateVolts, gridVolts, amps: mA / 1000, transconductance: gm === null ? null : gm / 1000, testedOn: '', testedBy: 'Owen Pryde', setId })
+export const DEMO_LOTS = [
+  { id: idOf('010', 1), tubeType: '6l6gc', maker: 'Generic 6L6GC, grey plates', receivedOn: '', costCents: 2400, notes: 'Burned in for an hour before reading.', daysAgo: 9 },
+  { id: idOf('010', 2), tubeType: 'el84', maker: 'Generic EL84', receivedOn: '', costCents: 1300, notes: '', daysAgo: 4 },
+]
+const SET_1 = idOf('012', 1)
+export const DEMO_STOCK_TUBES = [
+  stockTube(1, DEMO_LOTS[0]!.id, 'L1-01', 400, -45, 41.2, 5.6, SET_1),
+  stockTube(2, DEMO_LOTS[0]!.id, 'L1-02', 400, -45, 41.8, 5.7, SET_1),
+  stockTube(3, DEMO_LOTS[0]!.id, 'L1-03', 400, -45, 42.1, 5.7, SET_1),
+  stockTube(4, DEMO_LOTS[0]!.id, 'L1-04', 400, -45, 42.5, 5.8, SET_1),
+  stockTube(5, DEMO_LOTS[0]!.id, 'L1-05', 400, -45, 45.2, 6.0),
+  stockTube(6, DEMO_LOTS[0]!.id, 'L1-06', 400, -45, 38.9, 5.3),
+  stockTube(7, DEMO_LOTS[1]!.id, 'L2-01', 250, -7.3, 31.0, null),
+  stockTube(8, DEMO_LOTS[1]!.id, 'L2-02', 250, -7.3, 33.4, null),
+  stockTube(9, DEMO_LOTS[1]!.id, 'L2-03', 250, -7.3, 29.1, null),
+  stockTube(10, DEMO_LOTS[1]!.id, 'L2-04', 250, -7.3, 36.8, null),
+]
+export const DEMO_SETS = [
+  { id: SET_1, tubeType: '6l6gc', label: 'S-1', tubeIds: DEMO_STOCK_TUBES.filter(t => t.setId === SET_1).map(t => t.id), size: 4 as const },
+]

@@ -8,8 +8,9 @@ import type { MySqlTransaction } from 'drizzle-orm/mysql-core'
 import * as schema from './schema/index'
 import { invoiceTotals, labourTotalCents, partTotalCents } from '../../shared/utils/jobs/money'
 import { expandSteps, findProcedure } from '../../shared/utils/procedures/index'
+import { setSpread } from '../../shared/utils/bench/set-spread'
 import { bumpShopVersion, lockShopVersion } from '../utils/transactions'
-import { DEMO_AMPS, DEMO_CUSTOMERS, DEMO_INVOICE, DEMO_JOBS, DEMO_LABOUR, DEMO_PARTS, DEMO_RUNS, DEMO_SEED_CLIENT, DEMO_SETTINGS, DEMO_SHOP, DEMO_USERS, demoEventId } from './demo'
+import { DEMO_AMPS, DEMO_CUSTOMERS, DEMO_INVOICE, DEMO_LOTS, DEMO_SETS, DEMO_STOCK_TUBES, DEMO_JOBS, DEMO_LABOUR, DEMO_PARTS, DEMO_RUNS, DEMO_SEED_CLIENT, DEMO_SETTINGS, DEMO_SHOP, DEMO_USERS, demoEventId } from './demo'
 
 const url = process.env.NUXT_DATABASE_URL
 if (!url) {
@@ -94,6 +95,21 @@ async function seedJobs(tx: Tx) {
       status: 'done' as const, stepIndex: steps.length, readings, warnings: [], endedAt: minute(3 * steps.length + 1), endReason: '',
     }
     await tx.insert(schema.procedureRuns).values({ id: r.id, ...run, ...synced(run, TECH, at) })
+  }
+  // Tube stock: the lot, its tubes read the day it came in, then the quad matched from them.
+  for (const { id, daysAgo, ...f } of await missing(schema.tubeLots, DEMO_LOTS)) {
+    const received = { ...f, receivedOn: day(daysAgo).toISOString().slice(0, 10) }
+    await tx.insert(schema.tubeLots).values({ id, ...received, ...synced(received, TECH, day(daysAgo)) })
+  }
+  for (const { id, ...f } of await missing(schema.stockTubes, DEMO_STOCK_TUBES)) {
+    const at = day(DEMO_LOTS.find(l => l.id === f.lotId)!.daysAgo)
+    const tube = { ...f, testedOn: at.toISOString().slice(0, 10) }
+    await tx.insert(schema.stockTubes).values({ id, ...tube, ...synced(tube, TECH, at) })
+  }
+  for (const { id, ...f } of await missing(schema.matchedSets, DEMO_SETS)) {
+    const amps = f.tubeIds.map(t => DEMO_STOCK_TUBES.find(s => s.id === t)!.amps)
+    const set = { ...f, spreadFraction: setSpread(amps), sorterResultId: null, status: 'in-stock' as const, fittedJobId: null, fittedAt: '', priceCents: null }
+    await tx.insert(schema.matchedSets).values({ id, ...set, ...synced(set, TECH, day(DEMO_LOTS[0]!.daysAgo - 0.2)) })
   }
   const [invoice] = await tx.select({ id: schema.invoices.id }).from(schema.invoices).where(eq(schema.invoices.id, DEMO_INVOICE.id))
   if (!invoice) {

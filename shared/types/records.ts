@@ -1,7 +1,7 @@
 // One shape per synced record, taken from the Drizzle schema (type-only: no server code reaches
 // the client). A record as the device holds it is the table's row as JSON carries it, without the
 // server's bookkeeping (field stamps, deletion time), plus what the device adds.
-import type { amps, customers, invoices, jobLabour, jobParts, jobs, measurements, notes, procedureGates, procedureRuns } from '../../server/db/schema'
+import type { amps, customers, invoices, jobLabour, jobParts, jobs, matchedSets, measurements, notes, procedureGates, procedureRuns, stockTubes, tubeLots } from '../../server/db/schema'
 
 /** A column as JSON brings it: dates arrive as ISO strings. */
 type Wire<R> = { [K in keyof R]: R[K] extends Date ? string : R[K] extends Date | null ? string | null : R[K] }
@@ -21,6 +21,9 @@ export type AmpRecord = DeviceRecord<typeof amps.$inferSelect>
 export type JobRecord = DeviceRecord<typeof jobs.$inferSelect>
 export type JobPartRecord = DeviceRecord<typeof jobParts.$inferSelect>
 export type JobLabourRecord = DeviceRecord<typeof jobLabour.$inferSelect>
+export type TubeLotRecord = DeviceRecord<typeof tubeLots.$inferSelect>
+export type StockTubeRecord = DeviceRecord<typeof stockTubes.$inferSelect>
+export type MatchedSetRecord = DeviceRecord<typeof matchedSets.$inferSelect>
 export type NoteRecord = DeviceRecord<typeof notes.$inferSelect>
 export type MeasurementRecord = DeviceRecord<typeof measurements.$inferSelect>
 export type ProcedureGateRecord = DeviceRecord<typeof procedureGates.$inferSelect>
@@ -35,6 +38,9 @@ export interface EntityRecords {
   jobs: JobRecord
   jobParts: JobPartRecord
   jobLabour: JobLabourRecord
+  tubeLots: TubeLotRecord
+  stockTubes: StockTubeRecord
+  matchedSets: MatchedSetRecord
   notes: NoteRecord
   measurements: MeasurementRecord
   procedureGates: ProcedureGateRecord

@@ -5,6 +5,7 @@ export type Verb = 'read' | 'create' | 'update' | 'remove' | 'pay'
 
 const EVERYONE: readonly Role[] = ROLES
 const MEASURING: readonly Role[] = ['owner', 'tech', 'player']
+const BENCH: readonly Role[] = ['owner', 'tech']
 
 /**
  * Record x verb -> roles. `remove` also covers restoring. A verb left out is allowed to nobody.
@@ -17,6 +18,10 @@ export const PERMISSIONS = {
   jobs: { read: EVERYONE, create: ['owner', 'desk'], update: ['owner', 'desk', 'tech'], remove: ['owner'] },
   jobParts: { read: EVERYONE, create: ['owner', 'tech'], update: ['owner', 'tech'], remove: ['owner', 'tech'] },
   jobLabour: { read: EVERYONE, create: ['owner', 'tech'], update: ['owner', 'tech'], remove: ['owner', 'tech'] },
+  // Shop tube stock: the bench manages it, the desk reads it, players see none of it.
+  tubeLots: { read: STAFF_ROLES, create: BENCH, update: BENCH, remove: BENCH },
+  stockTubes: { read: STAFF_ROLES, create: BENCH, update: BENCH, remove: BENCH },
+  matchedSets: { read: STAFF_ROLES, create: BENCH, update: BENCH, remove: BENCH },
   notes: { read: EVERYONE, create: EVERYONE, update: EVERYONE, remove: EVERYONE },
   // Insert-only: a saved result is what the bench computed; it can be deleted, never edited.
   measurements: { read: EVERYONE, create: MEASURING, remove: EVERYONE },

@@ -141,6 +141,9 @@ export class LocalDb extends Dexie {
   jobs!: Table<EntityRow<'jobs'>, string>
   jobParts!: Table<EntityRow<'jobParts'>, string>
   jobLabour!: Table<EntityRow<'jobLabour'>, string>
+  tubeLots!: Table<EntityRow<'tubeLots'>, string>
+  stockTubes!: Table<EntityRow<'stockTubes'>, string>
+  matchedSets!: Table<EntityRow<'matchedSets'>, string>
   jobEvents!: Table<JobEventRow, string>
   invoices!: Table<InvoiceRow, string>
   procedureGates!: Table<EntityRow<'procedureGates'>, string>
@@ -173,7 +176,13 @@ export class LocalDb extends Dexie {
       procedureGates: 'id, shopId, runId, jobId',
       procedureRuns: 'id, shopId, jobId, status, updatedAt',
     })
+    // Shop tube stock: lots, their tubes' readings, matched sets.
+    this.version(4).stores({
+      tubeLots: 'id, shopId, tubeType',
+      stockTubes: 'id, shopId, lotId, setId',
+      matchedSets: 'id, shopId, status, fittedJobId',
+    })
   }
 }
 
-export const VIEW_TABLES = ['notes', 'measurements', 'conflicts', 'customers', 'amps', 'jobs', 'jobParts', 'jobLabour', 'jobEvents', 'invoices', 'procedureGates', 'procedureRuns'] as const
+export const VIEW_TABLES = ['notes', 'measurements', 'conflicts', 'customers', 'amps', 'jobs', 'jobParts', 'jobLabour', 'tubeLots', 'stockTubes', 'matchedSets', 'jobEvents', 'invoices', 'procedureGates', 'procedureRuns'] as const

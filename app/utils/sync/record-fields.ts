@@ -11,6 +11,7 @@ interface FieldInfo { label: string, kind: FieldKind, options?: Record<string, s
 
 const PRIORITY_LABELS = { low: 'Low', normal: 'Normal', rush: 'Rush' }
 const RUN_STATUS_LABELS = { running: 'Running', done: 'Done', stopped: 'Stopped' }
+const SET_STATUS_LABELS = { 'in-stock': 'In stock', 'fitted': 'Fitted to a job' }
 
 export const RECORD_NOUNS: Record<string, string> = ENTITY_NOUNS
 
@@ -62,6 +63,29 @@ const FIELDS: Record<string, Record<string, FieldInfo>> = {
     rateCents: { label: 'hourly rate', kind: 'money' },
     techId: { label: 'tech', kind: 'person' },
   },
+  tubeLots: {
+    maker: { label: 'maker and label', kind: 'text' },
+    receivedOn: { label: 'received', kind: 'date' },
+    costCents: { label: 'cost per tube', kind: 'money' },
+    notes: { label: 'notes', kind: 'longtext' },
+  },
+  stockTubes: {
+    label: { label: 'label', kind: 'text' },
+    plateVolts: { label: 'plate volts at the test', kind: 'number' },
+    gridVolts: { label: 'grid volts at the test', kind: 'number' },
+    amps: { label: 'current (A)', kind: 'number' },
+    transconductance: { label: 'transconductance (S)', kind: 'number' },
+    testedOn: { label: 'tested on', kind: 'date' },
+    testedBy: { label: 'tested by', kind: 'text' },
+    setId: { label: 'matched set', kind: 'record' },
+  },
+  matchedSets: {
+    label: { label: 'label', kind: 'text' },
+    status: { label: 'status', kind: 'enum', options: SET_STATUS_LABELS },
+    fittedJobId: { label: 'fitted to job', kind: 'record' },
+    fittedAt: { label: 'fitted at', kind: 'other' },
+    priceCents: { label: 'price', kind: 'money' },
+  },
   procedureRuns: {
     status: { label: 'status', kind: 'enum', options: RUN_STATUS_LABELS },
     stepIndex: { label: 'current step', kind: 'number' },
@@ -107,6 +131,8 @@ export function recordTitle(table: string, row: Record<string, unknown> | undefi
   else if (table === 'amps') name = [row.description, row.serial].filter(Boolean).join(' · ')
   else if (table === 'jobs') name = [related.amp, related.customer].filter(Boolean).join(' · ')
   else if (table === 'jobParts' || table === 'jobLabour') name = String(row.description ?? '')
+  else if (table === 'stockTubes' || table === 'matchedSets') name = String(row.label ?? '')
+  else if (table === 'tubeLots') name = String(row.maker || row.tubeType || '')
   else if (table === 'procedureRuns' || table === 'procedureGates') name = findProcedure(String(row.procedureId))?.title ?? ''
   return name ? `${noun} '${clip(name, 60)}'` : noun
 }

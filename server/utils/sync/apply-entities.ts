@@ -59,6 +59,7 @@ export async function entitySetFields(ctx: ApplyContext, table: EntityTable, arg
     }
     return { status: 'conflict', touched: true, reason: 'the record was deleted' }
   }
+  policy.guard?.(ctx, args.fields, row as never)
   const stamps = { ...row.fieldStamps }
   const clashing = changedByOthers(ctx, stamps, keys)
   const set: Record<string, unknown> = {}

@@ -7,6 +7,7 @@ import { canTransition, JOB_STATE_LABELS, type JobState } from '#shared/utils/jo
 import { evaluateRun, findProcedure, gateComplete, mayRun, validVariant, type ProcedureDefinition } from '#shared/utils/procedures/index'
 import { parseToolInputs, verifySavedResult, type BenchToolId } from '#shared/utils/bench'
 import { reject, type ApplyContext } from './context'
+import { STOCK_POLICIES } from './stock-policies'
 
 type Row = Record<string, unknown> & { id: string, status?: JobState }
 
@@ -21,6 +22,8 @@ export interface EntityPolicy {
   ownReason?: string
   /** The fields as stored, from the fields as sent (may refuse them). */
   normalise?: (fields: Record<string, unknown>) => Record<string, unknown>
+  /** Refuse an edit outright, before conflicts are weighed (`fields` as sent, `row` as stored). */
+  guard?: (ctx: ApplyContext, fields: Record<string, unknown>, row: Row) => void
   /** Refuse a record that points at something outside this shop. */
   check?: (ctx: ApplyContext, next: Record<string, unknown>, before?: Row) => Promise<void>
   /** Rows the server writes alongside (the job timeline). */
@@ -146,6 +149,7 @@ export const ENTITY_POLICIES: Record<EntityTable, EntityPolicy> = {
       await mustBeMember(ctx, next.techId, 'the tech', ['owner', 'tech'])
     },
   },
+  ...STOCK_POLICIES,
   notes: {
     table: tables.notes,
     ownReason: 'players may change only their own notes',

@@ -49,6 +49,10 @@ const PLAYER_SEES: Record<EntityTable, (t: EntityColumns, a: Access, scope: Scop
   jobs: (t, _a, s) => inIds(t.id, s.jobIds),
   jobParts: (t, _a, s) => inIds(t.jobId, s.jobIds),
   jobLabour: (t, _a, s) => inIds(t.jobId, s.jobIds),
+  // Shop tube stock is the shop's own business: a fitted set reaches the player as a job part.
+  tubeLots: t => inIds(t.id, []),
+  stockTubes: t => inIds(t.id, []),
+  matchedSets: t => inIds(t.id, []),
   // Their own notes, and the shop's notes on their jobs written for the customer.
   notes: (t, a, s) => or(eq(t.createdBy, a.userId), and(inIds(t.jobId, s.jobIds), eq(t.visibility, 'customer'))),
   measurements: (t, a, s) => or(eq(t.createdBy, a.userId), inIds(t.jobId, s.jobIds)),

@@ -17,6 +17,11 @@ export const RUN_STATUSES = ['running', 'done', 'stopped'] as const
 const stepKey = z.string().min(1).max(80)
 const stepReading = z.object({ value: z.number().finite().optional(), measurementId: id.optional(), at })
 export const NOTE_VISIBILITY = ['internal', 'customer'] as const
+export const SET_STATUSES = ['in-stock', 'fitted'] as const
+export const SET_SIZES = [2, 4] as const
+const isoDay = z.iso.date({ message: 'use a date like 2026-12-08' })
+// A Tubes library entry: a built-in id ("6l6gc") or a shop entry's id.
+const tubeType = z.string().trim().min(1, { message: 'pick a tube type' }).max(64)
 
 export const ENTITY_FIELDS = {
   customers: z.object({
@@ -60,6 +65,39 @@ export const ENTITY_FIELDS = {
     minutes: z.number().int().positive().max(100_000),
     rateCents: cents,
     techId: id.nullable(),
+  }),
+  // Shop tube stock: tubes bought together (cost per tube), each tube's reading at a stated test
+  // point (SI: volts, amps, siemens), and the matched sets made from them.
+  tubeLots: z.object({
+    tubeType,
+    maker: text(120),
+    receivedOn: z.union([z.literal(''), isoDay]),
+    costCents: cents,
+    notes: text(2000),
+  }),
+  stockTubes: z.object({
+    lotId: id,
+    label: text(20).min(1, { message: 'give the tube a label, like L3-07' }),
+    plateVolts: z.number({ message: 'enter the plate voltage' }).finite().positive({ message: 'the plate voltage must be above zero' }).max(2000, { message: 'at most 2000 V' }),
+    gridVolts: z.number({ message: 'enter the grid bias' }).finite().min(-500, { message: 'at least -500 V' }).max(0, { message: 'the grid bias is zero or negative' }),
+    amps: z.number({ message: 'enter the current' }).finite().positive({ message: 'the current must be above zero' }).max(1, { message: 'at most 1 A' }),
+    transconductance: z.number().finite().positive({ message: 'the transconductance must be above zero' }).max(1).nullable(),
+    testedOn: isoDay,
+    testedBy: text(120),
+    setId: id.nullable(),
+  }),
+  matchedSets: z.object({
+    tubeType,
+    label: text(20).min(1, { message: 'give the set a label, like S-12' }),
+    tubeIds: z.array(id).min(2).max(4),
+    size: z.union([z.literal(2), z.literal(4)], { message: 'a set is a pair or a quad' }),
+    spreadFraction: z.number().finite().min(0).max(10),
+    sorterResultId: id.nullable(),
+    status: z.enum(SET_STATUSES),
+    fittedJobId: id.nullable(),
+    fittedAt: z.union([z.literal(''), at]),
+    // The job part's price; null: the tubes' cost from their lots.
+    priceCents: cents.nullable(),
   }),
   // Note text is kept as typed (not trimmed): it is the person's own writing.
   notes: z.object({
@@ -112,6 +150,9 @@ export const ENTITY_PREFIX = {
   jobs: 'job',
   jobParts: 'jobPart',
   jobLabour: 'jobLabour',
+  tubeLots: 'tubeLot',
+  stockTubes: 'stockTube',
+  matchedSets: 'matchedSet',
   notes: 'note',
   measurements: 'measurement',
   procedureGates: 'procedureGate',
@@ -122,7 +163,8 @@ type Prefix<T extends EntityTable> = (typeof ENTITY_PREFIX)[T]
 
 /** What a person calls one record of each kind (sync screen, conflicts, "not found" answers). */
 export const ENTITY_NOUNS: Record<EntityTable, string> = {
-  customers: 'Customer', amps: 'Amp', jobs: 'Job', jobParts: 'Part', jobLabour: 'Labour', notes: 'Note',
+  customers: 'Customer', amps: 'Amp', jobs: 'Job', jobParts: 'Part', jobLabour: 'Labour',
+  tubeLots: 'Tube lot', stockTubes: 'Stock tube', matchedSets: 'Matched set', notes: 'Note',
   measurements: 'Bench result', procedureGates: 'Safety check', procedureRuns: 'Procedure run',
 }
 
@@ -133,6 +175,9 @@ export const ENTITY_DEFAULTS: { [T in EntityTable]: Partial<EntityFields<T>> } =
   jobs: { accessories: '', photos: [], promisedFor: '', assignedTo: null, priority: 'normal', status: 'checked-in' },
   jobParts: { unitCostCents: 0 },
   jobLabour: { description: '', techId: null },
+  tubeLots: { maker: '', receivedOn: '', costCents: 0, notes: '' },
+  stockTubes: { transconductance: null, testedBy: '', setId: null },
+  matchedSets: { sorterResultId: null, status: 'in-stock', fittedJobId: null, fittedAt: '', priceCents: null },
   notes: { jobId: null, title: '', visibility: 'internal' },
   measurements: { label: null, jobId: null, rigId: null },
   procedureGates: { jobId: null },
@@ -142,6 +187,10 @@ export const ENTITY_DEFAULTS: { [T in EntityTable]: Partial<EntityFields<T>> } =
 /** Fields set when the record is made and never by `.setFields` (a setFields naming one drops it). */
 export const ENTITY_FIXED: Partial<Record<EntityTable, readonly string[]>> = {
   notes: ['jobId'],
+  tubeLots: ['tubeType'],
+  stockTubes: ['lotId'],
+  // A set is the tubes it was matched from; to change them, delete it and match again.
+  matchedSets: ['tubeType', 'tubeIds', 'size', 'spreadFraction', 'sorterResultId'],
 }
 
 /** Records that are made once and never edited: no `.setFields` mutation. */
@@ -174,6 +223,9 @@ export const ENTITY_MUTATIONS = {
   ...entityMutations('jobs'),
   ...entityMutations('jobParts'),
   ...entityMutations('jobLabour'),
+  ...entityMutations('tubeLots'),
+  ...entityMutations('stockTubes'),
+  ...entityMutations('matchedSets'),
   ...entityMutations('notes'),
   ...entityMutations('measurements'),
   ...entityMutations('procedureGates'),

@@ -3,8 +3,11 @@ import { z } from 'zod'
 import { ENTITY_MUTATIONS, ENTITY_TABLES, type EntityTable } from './entities'
 import { id } from '../schemas/records'
 
-/** Bumped when a mutation's arguments or a table's shape change incompatibly (2: notes and bench results carry createdBy). */
-export const SYNC_SCHEMA_VERSION = 2
+/**
+ * Bumped when a mutation's arguments or a table's shape change incompatibly (2: notes and bench
+ * results carry createdBy; 3: tube stock tables, so stored cookies start over and bring them).
+ */
+export const SYNC_SCHEMA_VERSION = 3
 export const PULL_PAGE_SIZE = 500
 export const MAX_PUSH_MUTATIONS = 500
 

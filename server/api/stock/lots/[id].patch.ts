@@ -1,0 +1,3 @@
+import { tubeLotPatchBody } from '#shared/utils/schemas/stock'
+
+export default entityPatchRoute('tubeLots', tubeLotPatchBody)

@@ -1,0 +1,3 @@
+import { tubeLotCreateBody } from '#shared/utils/schemas/stock'
+
+export default entityCreateRoute('tubeLots', tubeLotCreateBody)

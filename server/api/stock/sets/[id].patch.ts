@@ -1,0 +1,3 @@
+import { matchedSetPatchBody } from '#shared/utils/schemas/stock'
+
+export default entityPatchRoute('matchedSets', matchedSetPatchBody)

@@ -1,0 +1,3 @@
+import { matchedSetCreateBody } from '#shared/utils/schemas/stock'
+
+export default entityCreateRoute('matchedSets', matchedSetCreateBody)

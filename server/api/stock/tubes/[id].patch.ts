@@ -1,0 +1,3 @@
+import { stockTubePatchBody } from '#shared/utils/schemas/stock'
+
+export default entityPatchRoute('stockTubes', stockTubePatchBody)

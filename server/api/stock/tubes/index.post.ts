@@ -1,0 +1,3 @@
+import { stockTubeCreateBody } from '#shared/utils/schemas/stock'
+
+export default entityCreateRoute('stockTubes', stockTubeCreateBody)
