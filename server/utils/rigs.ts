@@ -68,21 +68,22 @@ export async function rigDetail(userId: string, activeShopId: string | null | un
     access = 'shared'
   }
   if (!rig) throw createError({ statusCode: 404, message: 'Rig not found.' })
-  const live = <T extends { rigId: typeof tables.rigs.id, deletedAt: typeof tables.rigs.deletedAt, shopId: typeof tables.rigs.shopId }>(t: T) =>
-    and(eq(t.rigId, rig.id), eq(t.shopId, rig.shopId), isNull(t.deletedAt))
   const strip = <R extends { fieldStamps: unknown, shopId: string, deletedAt: Date | null }>(row: R) => {
     const { fieldStamps: _f, shopId: _s, deletedAt: _d, ...rest } = row
     return rest
   }
+  const ts = tables.rigTubeSets
+  const g = tables.rigGigs
+  const sh = tables.rigShares
   const [sets, gigs] = await Promise.all([
-    db.select().from(tables.rigTubeSets).where(live(tables.rigTubeSets)).orderBy(desc(tables.rigTubeSets.fittedOn)),
-    db.select().from(tables.rigGigs).where(live(tables.rigGigs)).orderBy(desc(tables.rigGigs.playedOn)),
+    db.select().from(ts).where(and(eq(ts.rigId, rig.id), eq(ts.shopId, rig.shopId), isNull(ts.deletedAt))).orderBy(desc(ts.fittedOn)),
+    db.select().from(g).where(and(eq(g.rigId, rig.id), eq(g.shopId, rig.shopId), isNull(g.deletedAt))).orderBy(desc(g.playedOn)),
   ])
   const base = { ...card(rig), access, sets: sets.map(strip), gigs: gigs.map(strip) }
   if (access === 'shared') return { ...base, shares: [], history: [] }
-  const shares = await db.select({ id: tables.rigShares.id, sharedShopId: tables.rigShares.sharedShopId, shopName: tables.shops.name, createdAt: tables.rigShares.createdAt })
-    .from(tables.rigShares).innerJoin(tables.shops, eq(tables.shops.id, tables.rigShares.sharedShopId))
-    .where(live(tables.rigShares))
+  const shares = await db.select({ id: sh.id, sharedShopId: sh.sharedShopId, shopName: tables.shops.name, createdAt: sh.createdAt })
+    .from(sh).innerJoin(tables.shops, eq(tables.shops.id, sh.sharedShopId))
+    .where(and(eq(sh.rigId, rig.id), eq(sh.shopId, rig.shopId), isNull(sh.deletedAt)))
   return { ...base, shares, history: await shopHistory(rig.id) }
 }
 

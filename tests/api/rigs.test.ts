@@ -6,11 +6,12 @@ import { device } from './helpers/devices'
 
 interface Result { id: number, status: string, reason?: string }
 // One device per person and space, as in the app: its own client id and mutation numbers.
-const devices = new Map<string, { clientId: string, next: number }>()
+const devices = new WeakMap<Client, Map<string, { clientId: string, next: number }>>()
 async function push(c: Client, shopId: string, changes: { name: string, args: unknown }[]) {
-  const key = `${c.cookie}|${shopId}`
-  const d = devices.get(key) ?? { clientId: randomUUID(), next: 1 }
-  devices.set(key, d)
+  const mine = devices.get(c) ?? new Map<string, { clientId: string, next: number }>()
+  devices.set(c, mine)
+  const d = mine.get(shopId) ?? { clientId: randomUUID(), next: 1 }
+  mine.set(shopId, d)
   const r = await c.post('/api/sync/push', {
     clientId: d.clientId, shopId, schemaVersion: SYNC_SCHEMA_VERSION,
     mutations: changes.map(m => ({ id: d.next++, uuid: randomUUID(), ...m })),
