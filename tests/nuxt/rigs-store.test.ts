@@ -50,7 +50,7 @@ describe('rigs store (offline, on the device)', () => {
     expect(reminder.status?.hoursPlayed).toBe(5.5)
     expect(reminder.due.map(d => d.threshold)).toEqual(['hours'])
     expect(rigs.reminderOf(rig, '2026-02-02').due).toEqual([])
-    expect(sync.pending).toBe(6)
+    await until(() => sync.pending === 6, 'six changes waiting to be sent')
 
     // The data survives a reload of the store (it is in IndexedDB, not memory).
     const again = await sync.db!.rigs.get(rigId)
