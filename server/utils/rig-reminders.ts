@@ -5,15 +5,17 @@ import { fittedSet, reminderText, retubeStatus, type RetubeThreshold } from '#sh
  * One pass of the retube reminders: every rig whose fitted set has reached one of its player's
  * thresholds on `today` (YYYY-MM-DD) e-mails the player, once per threshold per fitted set.
  * The row in rig_reminders is claimed first (INSERT IGNORE on its unique key), so two passes
- * running at once, or a pass run again, never send the same reminder twice.
+ * running at once, or a pass run again, never send the same reminder twice. `onlyUserId`: one
+ * player's rigs only (the trigger route).
  */
-export async function sendRetubeReminders(today: string): Promise<{ checked: number, sent: { rigId: string, setId: string, threshold: RetubeThreshold }[] }> {
+export async function sendRetubeReminders(today: string, onlyUserId?: string): Promise<{ checked: number, sent: { rigId: string, setId: string, threshold: RetubeThreshold }[] }> {
   const db = useDb()
   const r = tables.rigs
   const rigs = await db.select({ rig: r, email: tables.users.email, name: tables.users.name }).from(r)
     .innerJoin(tables.shops, and(eq(tables.shops.id, r.shopId), eq(tables.shops.kind, 'personal')))
     .innerJoin(tables.users, eq(tables.users.id, r.createdBy))
-    .where(and(isNull(r.deletedAt), isNull(tables.users.deletedAt), or(isNotNull(r.retubeHours), isNotNull(r.retubeMonths))))
+    .where(and(isNull(r.deletedAt), isNull(tables.users.deletedAt), or(isNotNull(r.retubeHours), isNotNull(r.retubeMonths)),
+      onlyUserId ? eq(r.createdBy, onlyUserId) : undefined))
   if (!rigs.length) return { checked: 0, sent: [] }
   const ids = rigs.map(x => x.rig.id)
   const [sets, gigs] = await Promise.all([

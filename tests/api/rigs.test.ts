@@ -1,7 +1,8 @@
 import { randomUUID } from 'node:crypto'
 import { describe, expect, it } from 'vitest'
 import { SYNC_SCHEMA_VERSION } from '../../shared/utils/sync/protocol'
-import { client, DEMO, login, newOwner, type Client } from './helpers/client'
+import { BASE, client, DEMO, login, newOwner, type Client } from './helpers/client'
+import { caughtMail, waitForMail } from './helpers/mail'
 import { device } from './helpers/devices'
 
 interface Result { id: number, status: string, reason?: string }
@@ -223,5 +224,65 @@ describe('sharing a rig with a shop', () => {
     const samRigs = (await sam.get('/api/rigs')).body.items as { id: string }[]
     expect(samRigs.length).toBeGreaterThanOrEqual(1)
     expect((await desk.get(`/api/rigs/${samRigs[0]!.id}`)).status).toBe(404)
+  })
+})
+
+describe('retube reminders', () => {
+  const secret = process.env.TW_TEST_RIG_REMINDER_SECRET ?? ''
+  const run = async (body: Record<string, unknown>, key = secret) => {
+    const res = await fetch(`${BASE}/api/rigs/reminders/run`, { method: 'POST', headers: { 'content-type': 'application/json', 'x-task-secret': key }, body: JSON.stringify(body) })
+    return { status: res.status, body: await res.json() as { sent: { threshold: string, setId: string }[] } }
+  }
+  const thresholds = (r: { body: { sent: { threshold: string }[] } }) => r.body.sent.map(s => s.threshold)
+
+  it('can be run only with the task secret', async () => {
+    expect(secret.length).toBeGreaterThan(10)
+    expect((await run({}, '')).status).toBe(404)
+    expect((await run({}, 'x'.repeat(secret.length))).status).toBe(404)
+    expect((await run({ today: 'tomorrow' })).status).toBe(400)
+  })
+
+  it('e-mails the player once at each threshold of each fitted set', async () => {
+    const p = await loner('retube')
+    const email = p.me.user.email as string
+    const rigId = randomUUID()
+    const first = randomUUID()
+    const gig = (playedOn: string, hours: number) => ({ name: 'rigGig.create', args: { id: randomUUID(), rigId, playedOn, hours } })
+    expect(statuses((await push(p.c, p.space, [
+      { name: 'rig.create', args: { ...rigArgs(rigId), retubeHours: 5, retubeMonths: 2 } },
+      { name: 'rigTubeSet.create', args: { id: first, rigId, fittedOn: '2030-01-15' } },
+      gig('2030-01-20', 3),
+    ])).body.results)).toEqual(['applied', 'applied', 'applied'])
+    const mine = () => caughtMail().filter(m => m.to.includes(email))
+
+    // 3 h of 5, 0 months of 2: nothing yet.
+    expect(thresholds(await run({ today: '2030-01-21', userId: p.userId }))).toEqual([])
+    // 3 + 2.5 = 5.5 h: the hours reminder, once.
+    await push(p.c, p.space, [gig('2030-02-01', 2.5)])
+    const hours = await run({ today: '2030-02-02', userId: p.userId })
+    expect(hours.status).toBe(200)
+    expect(hours.body.sent).toEqual([{ rigId, setId: first, threshold: 'hours' }])
+    const mail = await waitForMail(email)
+    expect(mail.raw).toContain('Retube reminder')
+    expect(mail.raw).toContain('5.5 hours played on this set')
+    expect(mail.raw).toMatch(/qualified people/)
+    expect(thresholds(await run({ today: '2030-02-03', userId: p.userId }))).toEqual([])
+    // Two whole months on 2030-03-15, not the day before (common calendar months, see the unit tests).
+    expect(thresholds(await run({ today: '2030-03-14', userId: p.userId }))).toEqual([])
+    expect(thresholds(await run({ today: '2030-03-15', userId: p.userId }))).toEqual(['months'])
+    expect(thresholds(await run({ today: '2030-03-16', userId: p.userId }))).toEqual([])
+    expect(mine()).toHaveLength(2)
+
+    // A new set starts over: its own reminders, once each.
+    const second = randomUUID()
+    await push(p.c, p.space, [
+      { name: 'rigTubeSet.setFields', args: { id: first, fields: { retiredOn: '2030-03-20' } } },
+      { name: 'rigTubeSet.create', args: { id: second, rigId, fittedOn: '2030-03-20' } },
+      gig('2030-03-22', 6),
+    ])
+    const again = await run({ today: '2030-03-23', userId: p.userId })
+    expect(again.body.sent).toEqual([{ rigId, setId: second, threshold: 'hours' }])
+    expect(thresholds(await run({ today: '2030-03-24', userId: p.userId }))).toEqual([])
+    expect(mine()).toHaveLength(3)
   })
 })
