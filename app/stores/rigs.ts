@@ -1,6 +1,5 @@
 import { defineStore } from 'pinia'
-import { fittedSet, reminderText, retubeStatus, type RetubeStatus, type RetubeThreshold } from '#shared/utils/rigs/index'
-import type { RigReading } from '#shared/utils/rigs/index'
+import { fittedSet, reminderText, retubeStatus, type RetubeStatus, type RetubeThreshold, type RigReading } from '#shared/utils/rigs/index'
 import type { EntityFields } from '#shared/utils/sync/entities'
 import type { RigRecord, RigTubeSetRecord } from '#shared/types/records'
 

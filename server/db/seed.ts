@@ -9,8 +9,10 @@ import * as schema from './schema/index'
 import { invoiceTotals, labourTotalCents, partTotalCents } from '../../shared/utils/jobs/money'
 import { expandSteps, findProcedure } from '../../shared/utils/procedures/index'
 import { bumpShopVersion, lockShopVersion } from '../utils/transactions'
-import { DEMO_PERSONAL_SPACES, DEMO_RIGS, demoRigGigId, demoRigSetId, demoRigShareId } from './demo'
-import { DEMO_AMPS, DEMO_CUSTOMERS, DEMO_INVOICE, DEMO_JOBS, DEMO_LABOUR, DEMO_PARTS, DEMO_RUNS, DEMO_SEED_CLIENT, DEMO_SETTINGS, DEMO_SHOP, DEMO_USERS, demoEventId } from './demo'
+import {
+  DEMO_AMPS, DEMO_CUSTOMERS, DEMO_INVOICE, DEMO_JOBS, DEMO_LABOUR, DEMO_PARTS, DEMO_PERSONAL_SPACES, DEMO_RIGS, DEMO_RUNS, DEMO_SEED_CLIENT, DEMO_SETTINGS, DEMO_SHOP, DEMO_USERS,
+  demoEventId, demoRigGigId, demoRigSetId, demoRigShareId,
+} from './demo'
 
 const url = process.env.NUXT_DATABASE_URL
 if (!url) {
