@@ -7,15 +7,18 @@ import { tables, type Db } from './db'
 
 /** The id of the user's personal space, made on first use (safe when two requests race). */
 export async function ensurePersonalSpace(db: Db, userId: string): Promise<string> {
-  const find = () => db.select({ id: tables.shops.id }).from(tables.shops)
+  const m = tables.memberships
+  const find = () => db.select({ id: tables.shops.id, member: m.userId }).from(tables.shops)
+    .leftJoin(m, and(eq(m.shopId, tables.shops.id), eq(m.userId, userId)))
     .where(and(eq(tables.shops.personalOf, userId), eq(tables.shops.kind, 'personal'))).limit(1)
   let [space] = await find()
+  if (space?.member) return space.id
   if (!space) {
-    // The unique index on personal_of makes a second insert a no-op.
+    // The unique index on personal_of makes a second insert (a racing request) a no-op.
     await db.insert(tables.shops).ignore().values({ id: randomUUID(), name: 'My rigs', kind: 'personal', personalOf: userId })
     ;[space] = await find()
   }
   if (!space) throw new Error('the personal space could not be made')
-  await db.insert(tables.memberships).ignore().values({ shopId: space.id, userId, role: 'player' })
+  await db.insert(m).ignore().values({ shopId: space.id, userId, role: 'player' })
   return space.id
 }
