@@ -20,7 +20,7 @@ describe('check-in with a rig the player shares', () => {
         speakerLoadOhms: 8, outputTapOhms: 8, retubeHours: 120, retubeMonths: 12, notes: '', version: 3, createdBy: crypto.randomUUID(), updatedBy: null, createdAt: '', updatedAt: '',
       }],
     }))
-    const { sync } = await offlineShop('desk')
+    const { sync } = await offlineShop('owner')
     const w = await mountSuspended(JobsCheckInForm)
     await w.find('[data-testid="new-customer"]').trigger('click')
     await w.find('#ci-customer-name').setValue('Dana Whitlow')
