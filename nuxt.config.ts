@@ -46,6 +46,8 @@ export default defineNuxtConfig({
     paymentApiProtocol: 'http',
     paymentSecretKey: '',
     paymentWebhookSecret: '',
+    // Lets POST /api/rigs/reminders/run trigger the reminder task (NUXT_RIG_REMINDER_SECRET; empty: off).
+    rigReminderSecret: '',
     session: {
       name: 'tubewright-session',
       maxAge: 60 * 60 * 24 * 30,
@@ -57,6 +59,9 @@ export default defineNuxtConfig({
   },
   nitro: {
     prerender: { routes: ['/'] },
+    // Retube reminders (server/tasks/rigs/reminders.ts), checked every hour.
+    experimental: { tasks: true },
+    scheduledTasks: { '0 * * * *': ['rigs:reminders'] },
   },
   tailwindcss: { cssPath: false, viewer: false },
   pwa: {

@@ -1,14 +1,19 @@
+import { isPersonalTable } from '#shared/utils/sync/entities'
 import type { LocalDb } from '~/utils/sync/local-db'
 
-type ShopTable = 'customers' | 'amps' | 'jobs' | 'jobParts' | 'jobLabour' | 'tubeLots' | 'stockTubes' | 'matchedSets' | 'jobEvents' | 'invoices' | 'notes' | 'measurements' | 'procedureGates' | 'procedureRuns'
+type ShopTable = 'customers' | 'amps' | 'jobs' | 'jobParts' | 'jobLabour' | 'tubeLots' | 'stockTubes' | 'matchedSets' | 'jobEvents' | 'invoices' | 'notes' | 'measurements' | 'procedureGates' | 'procedureRuns' | 'rigs' | 'rigTubeSets' | 'rigGigs' | 'rigShares'
 type RowOf<K extends ShopTable> = LocalDb[K] extends import('dexie').Table<infer R, string> ? R : never
 
-/** Every live (not deleted) row of one table in the active shop, following the device database. */
+/** Every live (not deleted) row of one table in the active shop (rig records: the person's own space), following the device database. */
 export function useShopTable<K extends ShopTable>(table: K) {
   const sync = useSyncStore()
+  const space = () => (isPersonalTable(table) ? sync.personalId : sync.shopId)
   const rows = useLiveQuery(
-    () => (sync.db && sync.shopId ? (sync.db[table] as import('dexie').Table<RowOf<K>, string>).where('shopId').equals(sync.shopId).toArray() : null),
-    () => [sync.db, sync.shopId],
+    () => {
+      const s = space()
+      return sync.db && s ? (sync.db[table] as import('dexie').Table<RowOf<K>, string>).where('shopId').equals(s).toArray() : null
+    },
+    () => [sync.db, space()],
     null as RowOf<K>[] | null,
   )
   const list = computed(() => (rows.value ?? []).filter(r => !(r as { deleted: boolean }).deleted))

@@ -1,6 +1,6 @@
 import { defineStore } from 'pinia'
 import type { MutationArgs, MutationName } from '#shared/utils/sync/protocol'
-import { ENTITY_PREFIX, ENTITY_TABLES, type EntityTable } from '#shared/utils/sync/entities'
+import { ENTITY_PREFIX, ENTITY_TABLES, entityOf, isPersonalTable, type EntityTable } from '#shared/utils/sync/entities'
 import { LocalDb, localDbName, type ConflictRow, type MetaRow, type OutboxRow, type RejectionRow } from '~/utils/sync/local-db'
 import { SyncEngine, SyncHttpError, type Transport } from '~/utils/sync/engine'
 import { syncStateOf, type SyncState } from '~/utils/sync/status'
@@ -34,12 +34,18 @@ const transport: Transport = async (path, body) => {
   return { status: res.status, body: res._data ?? null }
 }
 
-/** The on-device database of the signed-in user, one engine per shop, and when to sync. */
+/**
+ * The on-device database of the signed-in user, one engine per shop, and when to sync. Beside the
+ * active shop's engine runs the engine of the person's own space (their rigs): both sync together,
+ * and a change goes to the one its record lives in.
+ */
 export const useSyncStore = defineStore('sync', () => {
   const session = useSessionStore()
   const db = shallowRef<LocalDb | null>(null)
   const engine = shallowRef<SyncEngine | null>(null)
   const shopId = computed(() => engine.value?.shopId ?? null)
+  const personal = shallowRef<SyncEngine | null>(null)
+  const personalId = computed(() => personal.value?.shopId ?? null)
   const engines = new Map<string, { engine: SyncEngine, ready: Promise<void> }>()
 
   const sending = ref(false)
@@ -50,14 +56,17 @@ export const useSyncStore = defineStore('sync', () => {
   const persisted = ref<boolean | null>(null)
   let persistAsked = false
 
-  const deps = () => [db.value, shopId.value]
-  const forShop = <T>(q: (d: LocalDb, shop: string) => Promise<T>, empty: T) => () => (db.value && shopId.value ? q(db.value, shopId.value) : empty)
+  const deps = () => [db.value, shopId.value, personalId.value]
+  // The active shop and the person's own space, together.
+  const spaces = () => [shopId.value, personalId.value].filter((s): s is string => !!s)
+  const forShop = <T>(q: (d: LocalDb, shops: string[]) => Promise<T>, empty: T) => () => (db.value && spaces().length ? q(db.value, spaces()) : empty)
   // Changes the server has not answered yet (answered ones wait for the next pull, see engine.ts).
-  const pending = useLiveQuery(forShop((d, s) => d.outbox.where('shopId').equals(s).filter(m => !m.sent).count(), 0), deps, 0)
-  const pendingList = useLiveQuery(forShop((d, s) => d.outbox.where('[shopId+id]').between([s, 0], [s, Infinity]).filter(m => !m.sent).limit(100).toArray(), [] as OutboxRow[]), deps, [])
-  const rejections = useLiveQuery(forShop((d, s) => d.rejections.where('shopId').equals(s).reverse().sortBy('seq'), [] as RejectionRow[]), deps, [])
-  const conflictList = useLiveQuery(forShop((d, s) => d.conflicts.where('shopId').equals(s).filter(c => c.status === 'open').toArray(), [] as ConflictRow[]), deps, [])
-  const meta = useLiveQuery(forShop((d, s) => d.meta.get(s), undefined as MetaRow | undefined), deps, undefined)
+  const pending = useLiveQuery(forShop((d, s) => d.outbox.where('shopId').anyOf(s).filter(m => !m.sent).count(), 0), deps, 0)
+  const pendingList = useLiveQuery(forShop(async (d, s) => (await d.outbox.where('shopId').anyOf(s).filter(m => !m.sent).toArray())
+    .sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.id - b.id).slice(0, 100), [] as OutboxRow[]), deps, [])
+  const rejections = useLiveQuery(forShop((d, s) => d.rejections.where('shopId').anyOf(s).reverse().sortBy('seq'), [] as RejectionRow[]), deps, [])
+  const conflictList = useLiveQuery(forShop((d, s) => d.conflicts.where('shopId').anyOf(s).filter(c => c.status === 'open').toArray(), [] as ConflictRow[]), deps, [])
+  const meta = useLiveQuery(forShop((d, s) => d.meta.get(s[0]!), undefined as MetaRow | undefined), deps, undefined)
 
   const conflicts = computed(() => conflictList.value.length)
   const conflictRowIds = computed(() => new Set(conflictList.value.map(c => c.rowId)))
@@ -98,18 +107,20 @@ export const useSyncStore = defineStore('sync', () => {
   }
 
   async function runSync() {
-    const current = engines.get(shopId.value ?? '')
-    if (!current || blocked.value) return
+    const current = [engines.get(shopId.value ?? ''), engines.get(personalId.value ?? '')].filter(e => !!e)
+    if (!current.length || blocked.value) return
     if (running) {
       again = true
       return
     }
     running = true
     try {
-      await current.ready
-      await exclusive(current.engine.userId, async () => {
-        sending.value = (await current.engine.pendingCount()) > 0
-        await current.engine.sync()
+      for (const c of current) await c.ready
+      await exclusive(current[0]!.engine.userId, async () => {
+        for (const c of current) {
+          sending.value = (await c.engine.pendingCount()) > 0
+          await c.engine.sync()
+        }
       })
       attempt = 0
       retryAt = 0
@@ -157,9 +168,20 @@ export const useSyncStore = defineStore('sync', () => {
     if (count > 0) localStorage.setItem(STORAGE_KEYS.unsent, JSON.stringify({ userId: user.id, name: user.name, email: user.email, count } satisfies UnsentHint))
   }
 
-  function open(userId: string | null, shop: string | null) {
+  function entryFor(userId: string, shop: string) {
+    let entry = engines.get(shop)
+    if (!entry) {
+      const e = markRaw(new SyncEngine({ db: db.value!, userId, shopId: shop, transport }))
+      entry = { engine: e, ready: e.rebuild().catch((err) => { console.error('rebuilding the on-device view failed', err) }) }
+      engines.set(shop, entry)
+    }
+    return entry
+  }
+
+  function open(userId: string | null, shop: string | null, own: string | null = null) {
     if (db.value && db.value.name !== (userId ? localDbName(userId) : '')) {
       engine.value = null
+      personal.value = null
       engines.clear()
       db.value.close()
       db.value = null
@@ -167,26 +189,30 @@ export const useSyncStore = defineStore('sync', () => {
     if (!userId) return
     if (readUnsentHint()?.userId === userId) localStorage.removeItem(STORAGE_KEYS.unsent)
     db.value ??= markRaw(new LocalDb(localDbName(userId)))
-    if (!shop) {
-      engine.value = null
-      return
-    }
-    let entry = engines.get(shop)
-    if (!entry) {
-      const e = markRaw(new SyncEngine({ db: db.value, userId, shopId: shop, transport }))
-      entry = { engine: e, ready: e.rebuild().catch((err) => { console.error('rebuilding the on-device view failed', err) }) }
-      engines.set(shop, entry)
-    }
-    engine.value = entry.engine
+    personal.value = own ? entryFor(userId, own).engine : null
+    engine.value = shop ? entryFor(userId, shop).engine : null
+    if (!shop && !own) return
     attempt = 0
     retryAt = 0
     kick()
   }
 
   /** Save one change on this device (durable before it resolves), then sync soon. */
+  /** The engine a change belongs to: the person's own space for rig records (and their conflicts), else the active shop's. */
+  async function engineFor(name: MutationName, args: unknown) {
+    const table = name === 'conflict.resolve'
+      ? (await db.value?.conflicts.get(String((args as { id: string }).id)))?.shopId === personalId.value && personalId.value ? 'rigs' : ''
+      : entityOf(name)?.table ?? ''
+    if (isPersonalTable(table)) {
+      if (!personal.value) throw new Error('Your rigs are not ready on this device yet: connect once so the app can set up your own space.')
+      return personal.value
+    }
+    if (!engine.value) throw new Error('Choose a shop first: notes and results are kept per shop.')
+    return engine.value
+  }
+
   async function mutate<N extends MutationName>(name: N, args: MutationArgs<N>, baseVersion?: number) {
-    const e = engine.value
-    if (!e) throw new Error('Choose a shop first: notes and results are kept per shop.')
+    const e = await engineFor(name, args)
     try {
       // Plain JSON: reactive proxies cannot be stored, and the server receives JSON anyway.
       const row = await e.mutate(name, JSON.parse(JSON.stringify(args)) as MutationArgs<N>, baseVersion)
@@ -238,7 +264,7 @@ export const useSyncStore = defineStore('sync', () => {
     watch(() => session.user, (user, before) => {
       if (before && before.id !== user?.id && engine.value?.userId === before.id) rememberUnsent(before, pending.value)
     })
-    watch(() => [session.user?.id ?? null, session.activeShop?.id ?? null] as const, ([u, s]) => open(u, s), { immediate: true })
+    watch(() => [session.user?.id ?? null, session.activeShop?.id ?? null, session.me?.personalSpaceId ?? null] as const, ([u, s, p]) => open(u, s, p), { immediate: true })
     window.addEventListener('online', () => {
       offline.value = false
       attempt = 0
@@ -260,7 +286,7 @@ export const useSyncStore = defineStore('sync', () => {
   }
 
   return {
-    db, engine, shopId, state, pending, pendingList, rejections, conflictList, conflicts, conflictRowIds, lastSyncedAt,
+    db, engine, shopId, personal, personalId, state, pending, pendingList, rejections, conflictList, conflicts, conflictRowIds, lastSyncedAt,
     sending, offline, error, blocked, storageFull, persisted,
     start, mutate, resolveConflict, syncNow: () => {
       attempt = 0

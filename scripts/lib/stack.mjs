@@ -50,6 +50,8 @@ export async function startThrowawayStack({ log = console.log, demoPassword = 't
     const appPort = await freePort()
     const paymentSecretKey = `sk_test_local_${randomBytes(12).toString('hex')}`
     const paymentWebhookSecret = `whsec_${randomBytes(24).toString('hex')}`
+    // Lets the API tests run the retube reminder task on demand (POST /api/rigs/reminders/run).
+    const rigReminderSecret = randomBytes(24).toString('hex')
     parts.payments = await startPaymentFake({
       secretKey: paymentSecretKey, webhookSecret: paymentWebhookSecret, webhookUrl: `http://127.0.0.1:${appPort}/api/payments/webhook`,
     })
@@ -64,6 +66,7 @@ export async function startThrowawayStack({ log = console.log, demoPassword = 't
       NUXT_PAYMENT_API_PORT: String(parts.payments.port),
       NUXT_PAYMENT_SECRET_KEY: paymentSecretKey,
       NUXT_PAYMENT_WEBHOOK_SECRET: paymentWebhookSecret,
+      NUXT_RIG_REMINDER_SECRET: rigReminderSecret,
     }
     parts.server = await startAppServer({ port: appPort, env: appEnv, stdio: serverStdio })
     log(`app server on ${parts.server.url}`)
@@ -83,6 +86,7 @@ export async function startThrowawayStack({ log = console.log, demoPassword = 't
         TW_TEST_APP_ENV: JSON.stringify(appEnv),
         TW_TEST_BLOB_DIR: appEnv.NUXT_BLOB_DIR,
         TW_TEST_PAYMENT_URL: `http://127.0.0.1:${parts.payments.port}`,
+        TW_TEST_RIG_REMINDER_SECRET: rigReminderSecret,
       },
     }
   }

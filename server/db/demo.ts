@@ -34,8 +34,10 @@ type BiasMode = 'fixed' | 'cathode'
 const amp = (n: number, customerId: string, description: string, serial: string, tubeComplement: string, powerTubeCount: number, biasMode: BiasMode, rectifier = 'solid state') =>
   ({ id: idOf('002', n), customerId, description, serial, tubeComplement, powerTubeCount, biasMode, rectifier, notes: '' })
 
+// Dana's combo at the shop is her rig, shared with the shop (see DEMO_RIGS).
+export const DANA_COMBO_RIG = idOf('010', 1)
 export const DEMO_AMPS = [
-  amp(1, C[0]!, '18 W two-EL84 combo, cathode biased', 'LAW-0412', '3 x 12AX7, 2 x EL84, EZ81', 2, 'cathode', 'EZ81'),
+  { ...amp(1, C[0]!, '18 W two-EL84 combo, cathode biased', 'LAW-0412', '3 x 12AX7, 2 x EL84, EZ81', 2, 'cathode', 'EZ81'), rigId: DANA_COMBO_RIG as string | null },
   amp(2, C[1]!, 'two-6V6 combo, fixed bias', 'LAW-0419', '2 x 12AX7, 1 x 12AT7, 2 x 6V6GT', 2, 'fixed'),
   amp(3, C[1]!, '100 W four-6L6 head', 'LAW-0427', '4 x 12AX7, 4 x 6L6GC', 4, 'fixed'),
   amp(4, C[2]!, '50 W two-EL34 head, fixed bias', 'LAW-0431', '3 x 12AX7, 2 x EL34', 2, 'fixed'),
@@ -112,12 +114,12 @@ export const DEMO_RUNS: DemoRun[] = [
  * 6L6GC in stock (the four closest readings of lot 1). Readings in SI.
  */
 const stockTube = (n: number, lotId: string, label: string, plateVolts: number, gridVolts: number, mA: number, gm: number | null, setId: string | null = null) =>
-  ({ id: idOf('011', n), lotId, label, plateVolts, gridVolts, amps: mA / 1000, transconductance: gm === null ? null : gm / 1000, testedOn: '', testedBy: 'Owen Pryde', setId })
+  ({ id: idOf('021', n), lotId, label, plateVolts, gridVolts, amps: mA / 1000, transconductance: gm === null ? null : gm / 1000, testedOn: '', testedBy: 'Owen Pryde', setId })
 export const DEMO_LOTS = [
-  { id: idOf('010', 1), tubeType: '6l6gc', maker: 'Generic 6L6GC, grey plates', receivedOn: '', costCents: 2400, notes: 'Burned in for an hour before reading.', daysAgo: 9 },
-  { id: idOf('010', 2), tubeType: 'el84', maker: 'Generic EL84', receivedOn: '', costCents: 1300, notes: '', daysAgo: 4 },
+  { id: idOf('020', 1), tubeType: '6l6gc', maker: 'Generic 6L6GC, grey plates', receivedOn: '', costCents: 2400, notes: 'Burned in for an hour before reading.', daysAgo: 9 },
+  { id: idOf('020', 2), tubeType: 'el84', maker: 'Generic EL84', receivedOn: '', costCents: 1300, notes: '', daysAgo: 4 },
 ]
-const SET_1 = idOf('012', 1)
+const SET_1 = idOf('022', 1)
 export const DEMO_STOCK_TUBES = [
   stockTube(1, DEMO_LOTS[0]!.id, 'L1-01', 400, -45, 41.2, 5.6, SET_1),
   stockTube(2, DEMO_LOTS[0]!.id, 'L1-02', 400, -45, 41.8, 5.7, SET_1),
@@ -133,3 +135,57 @@ export const DEMO_STOCK_TUBES = [
 export const DEMO_SETS = [
   { id: SET_1, tubeType: '6l6gc', label: 'S-1', tubeIds: DEMO_STOCK_TUBES.filter(t => t.setId === SET_1).map(t => t.id), size: 4 as const },
 ]
+// The players' own rigs, kept in their personal spaces. Invented numbers for the demo only.
+const [, , , DANA, SAM] = DEMO_USERS.map(u => u.id)
+export const DEMO_PERSONAL_SPACES = [
+  { id: idOf('011', 1), name: 'My rigs', kind: 'personal' as const, personalOf: DANA! },
+  { id: idOf('011', 2), name: 'My rigs', kind: 'personal' as const, personalOf: SAM! },
+]
+const tubes = (...spec: [string, string][]) => spec.map(([position, type]) => ({ position, type }))
+export interface DemoRig {
+  id: string, player: string, description: string, serial: string, tubes: { position: string, type: string }[], biasMode: BiasMode,
+  speakerLoadOhms: number, outputTapOhms: number, retubeHours: number | null, retubeMonths: number | null, notes: string
+  /** Power-tube sets: days ago fitted (and retired), base mA per position, plate volts, readings taken on these days ago. */
+  sets: { n: number, fittedDaysAgo: number, retiredDaysAgo?: number, spare?: boolean, fittedBy: string, type: string, base: Record<string, number>, plateVolts: number | null, readDaysAgo: number[] }[]
+  /** Gigs: every `every` days from `fromDaysAgo`, `hours` long. */
+  gigs: { fromDaysAgo: number, every: number, hours: number }
+  /** Shared with the demo shop. */
+  shared: boolean
+}
+export const DEMO_RIGS: DemoRig[] = [
+  {
+    id: DANA_COMBO_RIG, player: DANA!, description: '18 W two-EL84 combo, cathode biased', serial: 'LAW-0412',
+    tubes: tubes(['V1', '12AX7'], ['V2', '12AX7'], ['V3', '12AX7'], ['V4', 'EL84'], ['V5', 'EL84'], ['V6', 'EZ81']),
+    biasMode: 'cathode', speakerLoadOhms: 8, outputTapOhms: 8, retubeHours: 120, retubeMonths: 12, notes: 'Gigging combo; spare pair in the back pocket.',
+    sets: [
+      { n: 1, fittedDaysAgo: 420, retiredDaysAgo: 160, fittedBy: 'Larkspur Amp Works', type: 'EL84', base: { V4: 36, V5: 38 }, plateVolts: 285, readDaysAgo: [420, 330, 240, 165] },
+      { n: 2, fittedDaysAgo: 160, fittedBy: 'Larkspur Amp Works', type: 'EL84', base: { V4: 34, V5: 35 }, plateVolts: 290, readDaysAgo: [160, 110, 60, 12] },
+      { n: 3, fittedDaysAgo: 160, spare: true, fittedBy: 'Larkspur Amp Works', type: 'EL84', base: { V4: 34, V5: 34 }, plateVolts: null, readDaysAgo: [160] },
+    ],
+    gigs: { fromDaysAgo: 158, every: 9, hours: 3 },
+    shared: true,
+  },
+  {
+    id: idOf('010', 2), player: DANA!, description: '50 W two-EL34 head, fixed bias', serial: 'HD-2291',
+    tubes: tubes(['V1', '12AX7'], ['V2', '12AX7'], ['V3', '12AX7'], ['V4', 'EL34'], ['V5', 'EL34']),
+    biasMode: 'fixed', speakerLoadOhms: 16, outputTapOhms: 16, retubeHours: 400, retubeMonths: 18, notes: 'Studio head.',
+    sets: [
+      { n: 4, fittedDaysAgo: 300, fittedBy: 'Dana (matched pair from a dealer)', type: 'EL34', base: { V4: 38, V5: 37 }, plateVolts: 430, readDaysAgo: [300, 200, 100, 20] },
+    ],
+    gigs: { fromDaysAgo: 290, every: 30, hours: 4 },
+    shared: false,
+  },
+  {
+    id: idOf('010', 3), player: SAM!, description: 'two-6V6 combo, fixed bias', serial: 'LAW-0419',
+    tubes: tubes(['V1', '12AX7'], ['V2', '12AX7'], ['V3', '12AT7'], ['V4', '6V6GT'], ['V5', '6V6GT']),
+    biasMode: 'fixed', speakerLoadOhms: 8, outputTapOhms: 8, retubeHours: 300, retubeMonths: 12, notes: '',
+    sets: [
+      { n: 5, fittedDaysAgo: 380, fittedBy: 'Sam', type: '6V6GT', base: { V4: 22, V5: 24 }, plateVolts: 340, readDaysAgo: [380, 270, 180, 90, 10] },
+    ],
+    gigs: { fromDaysAgo: 370, every: 7, hours: 2.5 },
+    shared: false,
+  },
+]
+export const demoRigSetId = (n: number) => idOf('012', n)
+export const demoRigGigId = (rig: number, n: number) => idOf('013', rig * 1000 + n)
+export const demoRigShareId = (rig: number) => idOf('014', rig)

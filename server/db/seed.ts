@@ -10,7 +10,10 @@ import { invoiceTotals, labourTotalCents, partTotalCents } from '../../shared/ut
 import { expandSteps, findProcedure } from '../../shared/utils/procedures/index'
 import { setSpread } from '../../shared/utils/bench/set-spread'
 import { bumpShopVersion, lockShopVersion } from '../utils/transactions'
-import { DEMO_AMPS, DEMO_CUSTOMERS, DEMO_INVOICE, DEMO_LOTS, DEMO_SETS, DEMO_STOCK_TUBES, DEMO_JOBS, DEMO_LABOUR, DEMO_PARTS, DEMO_RUNS, DEMO_SEED_CLIENT, DEMO_SETTINGS, DEMO_SHOP, DEMO_USERS, demoEventId } from './demo'
+import {
+  DEMO_AMPS, DEMO_CUSTOMERS, DEMO_INVOICE, DEMO_JOBS, DEMO_LABOUR, DEMO_LOTS, DEMO_PARTS, DEMO_PERSONAL_SPACES, DEMO_RIGS, DEMO_RUNS, DEMO_SEED_CLIENT, DEMO_SETS,
+  DEMO_SETTINGS, DEMO_SHOP, DEMO_STOCK_TUBES, DEMO_USERS, demoEventId, demoRigGigId, demoRigSetId, demoRigShareId,
+} from './demo'
 
 const url = process.env.NUXT_DATABASE_URL
 if (!url) {
@@ -131,6 +134,56 @@ async function seedJobs(tx: Tx) {
   if (version !== start) await bumpShopVersion(tx, SHOP, version)
 }
 
+/**
+ * Dana's and Sam's rigs in their personal spaces: sets with readings over months, gigs, and the
+ * share of Dana's combo with the demo shop. Rows already there are left alone.
+ */
+async function seedRigs(tx: Tx) {
+  const now = Date.now()
+  const dayOf = (daysAgo: number) => new Date(now - daysAgo * 24 * HOUR).toISOString().slice(0, 10)
+  const at = (daysAgo: number) => new Date(now - daysAgo * 24 * HOUR)
+  for (const space of DEMO_PERSONAL_SPACES) {
+    await tx.insert(schema.shops).ignore().values(space)
+    await tx.insert(schema.memberships).ignore().values({ shopId: space.id, userId: space.personalOf, role: 'player' })
+  }
+  for (const space of DEMO_PERSONAL_SPACES) {
+    const rigs = DEMO_RIGS.filter(r => r.player === space.personalOf)
+    const [have] = await tx.select({ id: schema.rigs.id }).from(schema.rigs).where(inArray(schema.rigs.id, rigs.map(r => r.id)))
+    if (have) continue
+    let version = await lockShopVersion(tx, space.id)
+    const by = space.personalOf
+    const synced = (fields: object, when: Date) => {
+      version++
+      const stamp = { v: version, c: DEMO_SEED_CLIENT, u: by, at: when.toISOString() }
+      return { shopId: space.id, version, fieldStamps: Object.fromEntries(Object.keys(fields).map(k => [k, stamp])), createdBy: by, updatedBy: by, createdAt: when, updatedAt: when }
+    }
+    for (const r of rigs) {
+      const oldest = Math.max(...r.sets.map(x => x.fittedDaysAgo)) + 10
+      const rig = { description: r.description, serial: r.serial, tubes: r.tubes, biasMode: r.biasMode, speakerLoadOhms: r.speakerLoadOhms, outputTapOhms: r.outputTapOhms, retubeHours: r.retubeHours, retubeMonths: r.retubeMonths, notes: r.notes }
+      await tx.insert(schema.rigs).values({ id: r.id, ...rig, ...synced(rig, at(oldest)) })
+      for (const s of r.sets) {
+        // A slow drift down as the set ages (invented).
+        const readings = s.readDaysAgo.flatMap((d, k) => Object.entries(s.base).map(([position, mA]) => ({ on: dayOf(d), position, mA: Math.round((mA - k * 0.8) * 10) / 10, plateVolts: s.plateVolts })))
+        const set = {
+          rigId: r.id, fittedOn: dayOf(s.fittedDaysAgo), fittedBy: s.fittedBy, tubes: Object.keys(s.base).map(position => ({ position, type: s.type })),
+          readings, spare: !!s.spare, retiredOn: s.retiredDaysAgo === undefined ? '' : dayOf(s.retiredDaysAgo),
+        }
+        await tx.insert(schema.rigTubeSets).values({ id: demoRigSetId(s.n), ...set, ...synced(set, at(s.fittedDaysAgo)) })
+      }
+      let n = 0
+      for (let d = r.gigs.fromDaysAgo; d > 0; d -= r.gigs.every) {
+        const gig = { rigId: r.id, playedOn: dayOf(d), hours: r.gigs.hours, note: '' }
+        await tx.insert(schema.rigGigs).values({ id: demoRigGigId(DEMO_RIGS.indexOf(r), n++), ...gig, ...synced(gig, at(d)) })
+      }
+      if (r.shared) {
+        const share = { rigId: r.id, sharedShopId: SHOP }
+        await tx.insert(schema.rigShares).values({ id: demoRigShareId(DEMO_RIGS.indexOf(r)), ...share, ...synced(share, at(30)) })
+      }
+    }
+    await bumpShopVersion(tx, space.id, version)
+  }
+}
+
 const pool = createPool({ uri: url, timezone: 'Z', connectionLimit: 2 })
 const db = drizzle(pool, { schema, mode: 'planetscale' })
 try {
@@ -144,6 +197,7 @@ try {
         .onDuplicateKeyUpdate({ set: { role: sql`role` } })
     }
     await seedJobs(tx as unknown as Tx)
+    await seedRigs(tx as unknown as Tx)
   })
   console.log(`[tubewright] Demo shop "${DEMO_SHOP.name}" seeded.`)
 }

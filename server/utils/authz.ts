@@ -17,15 +17,18 @@ export async function requireUserId(event: H3Event): Promise<string> {
 
 /**
  * The one gate for shop-scoped routes: a non-member (or a missing shop) gets 404, so ids of
- * other shops reveal nothing; a member without one of `roles` gets 403.
+ * other shops reveal nothing; a member without one of `roles` gets 403. `personal`: the
+ * signed-in person's own space (their rigs) is accepted too; only the sync routes pass it.
  */
-export async function requireShopRole(event: H3Event, shopId: string, roles?: readonly Role[]): Promise<ShopAccess> {
+export async function requireShopRole(event: H3Event, shopId: string, roles?: readonly Role[], opts: { personal?: boolean } = {}): Promise<ShopAccess> {
   const userId = await requireUserId(event)
   const [row] = await useDb()
     .select({ role: tables.memberships.role, since: tables.memberships.createdAt })
     .from(tables.memberships)
     .innerJoin(tables.shops, eq(tables.shops.id, tables.memberships.shopId))
-    .where(and(eq(tables.memberships.shopId, shopId), eq(tables.memberships.userId, userId), isNull(tables.shops.deletedAt)))
+    .where(and(eq(tables.memberships.shopId, shopId), eq(tables.memberships.userId, userId), isNull(tables.shops.deletedAt),
+      // A personal space is reached only by sync (`personal`); every shop route answers 404 for it.
+      opts.personal ? undefined : eq(tables.shops.kind, 'shop')))
     .limit(1)
   if (!row) throw createError({ statusCode: 404, message: 'Shop not found.' })
   if (roles && !roles.includes(row.role)) {

@@ -1,5 +1,6 @@
 import { and, asc, eq, isNull } from 'drizzle-orm'
 import type { MePayload } from '#shared/types/me'
+import { ensurePersonalSpace } from './personal-space'
 
 export async function loadMe(userId: string, activeShopId?: string | null): Promise<MePayload | null> {
   const db = useDb()
@@ -10,12 +11,15 @@ export async function loadMe(userId: string, activeShopId?: string | null): Prom
     .select({ shopId: tables.shops.id, shopName: tables.shops.name, role: tables.memberships.role })
     .from(tables.memberships)
     .innerJoin(tables.shops, eq(tables.shops.id, tables.memberships.shopId))
-    .where(and(eq(tables.memberships.userId, userId), isNull(tables.shops.deletedAt)))
+    .where(and(eq(tables.memberships.userId, userId), isNull(tables.shops.deletedAt), eq(tables.shops.kind, 'shop')))
     .orderBy(asc(tables.shops.name))
+  // The user's own space (rigs) is never one of the shops: the switcher and shop screens stay as they were.
+  const personalSpaceId = await ensurePersonalSpace(db, userId)
   const active = memberships.find(m => m.shopId === activeShopId) ?? memberships[0] ?? null
   return {
     user,
     memberships,
+    personalSpaceId,
     activeShop: active ? { id: active.shopId, name: active.shopName, role: active.role } : null,
   }
 }

@@ -1,7 +1,7 @@
 // One shape per synced record, taken from the Drizzle schema (type-only: no server code reaches
 // the client). A record as the device holds it is the table's row as JSON carries it, without the
 // server's bookkeeping (field stamps, deletion time), plus what the device adds.
-import type { amps, customers, invoices, jobLabour, jobParts, jobs, matchedSets, measurements, notes, procedureGates, procedureRuns, stockTubes, tubeLots } from '../../server/db/schema'
+import type { amps, customers, invoices, jobLabour, jobParts, jobs, matchedSets, measurements, notes, procedureGates, procedureRuns, rigGigs, rigShares, rigs, rigTubeSets, stockTubes, tubeLots } from '../../server/db/schema'
 
 /** A column as JSON brings it: dates arrive as ISO strings. */
 type Wire<R> = { [K in keyof R]: R[K] extends Date ? string : R[K] extends Date | null ? string | null : R[K] }
@@ -28,6 +28,10 @@ export type NoteRecord = DeviceRecord<typeof notes.$inferSelect>
 export type MeasurementRecord = DeviceRecord<typeof measurements.$inferSelect>
 export type ProcedureGateRecord = DeviceRecord<typeof procedureGates.$inferSelect>
 export type ProcedureRunRecord = DeviceRecord<typeof procedureRuns.$inferSelect>
+export type RigRecord = DeviceRecord<typeof rigs.$inferSelect>
+export type RigTubeSetRecord = DeviceRecord<typeof rigTubeSets.$inferSelect>
+export type RigGigRecord = DeviceRecord<typeof rigGigs.$inferSelect>
+export type RigShareRecord = DeviceRecord<typeof rigShares.$inferSelect>
 /** Written by the server only; the device gets it without its timestamps. */
 export type InvoiceRecord = DeviceRecord<Omit<typeof invoices.$inferSelect, 'createdAt' | 'updatedAt'>>
 
@@ -45,4 +49,8 @@ export interface EntityRecords {
   measurements: MeasurementRecord
   procedureGates: ProcedureGateRecord
   procedureRuns: ProcedureRunRecord
+  rigs: RigRecord
+  rigTubeSets: RigTubeSetRecord
+  rigGigs: RigGigRecord
+  rigShares: RigShareRecord
 }

@@ -34,6 +34,11 @@ export const PERMISSIONS = {
   members: { read: STAFF_ROLES, update: ['owner'], remove: ['owner'] },
   invitations: { read: ['owner'], create: ['owner'], remove: ['owner'] },
   mail: { read: ['owner'] },
+  // A player's own records, in their personal space (where they are the only member, as player).
+  rigs: { read: ['player'], create: ['player'], update: ['player'], remove: ['player'] },
+  rigTubeSets: { read: ['player'], create: ['player'], update: ['player'], remove: ['player'] },
+  rigGigs: { read: ['player'], create: ['player'], update: ['player'], remove: ['player'] },
+  rigShares: { read: ['player'], create: ['player'], remove: ['player'] },
 } as const satisfies Record<string, Partial<Record<Verb, readonly Role[]>>>
 
 export type RecordKind = keyof typeof PERMISSIONS

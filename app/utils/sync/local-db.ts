@@ -148,6 +148,10 @@ export class LocalDb extends Dexie {
   invoices!: Table<InvoiceRow, string>
   procedureGates!: Table<EntityRow<'procedureGates'>, string>
   procedureRuns!: Table<EntityRow<'procedureRuns'>, string>
+  rigs!: Table<EntityRow<'rigs'>, string>
+  rigTubeSets!: Table<EntityRow<'rigTubeSets'>, string>
+  rigGigs!: Table<EntityRow<'rigGigs'>, string>
+  rigShares!: Table<EntityRow<'rigShares'>, string>
 
   constructor(name: string) {
     super(name)
@@ -182,7 +186,14 @@ export class LocalDb extends Dexie {
       stockTubes: 'id, shopId, lotId, setId',
       matchedSets: 'id, shopId, status, fittedJobId',
     })
+    // A player's rigs (kept in their personal space).
+    this.version(5).stores({
+      rigs: 'id, shopId',
+      rigTubeSets: 'id, shopId, rigId',
+      rigGigs: 'id, shopId, rigId',
+      rigShares: 'id, shopId, rigId',
+    })
   }
 }
 
-export const VIEW_TABLES = ['notes', 'measurements', 'conflicts', 'customers', 'amps', 'jobs', 'jobParts', 'jobLabour', 'tubeLots', 'stockTubes', 'matchedSets', 'jobEvents', 'invoices', 'procedureGates', 'procedureRuns'] as const
+export const VIEW_TABLES = ['notes', 'measurements', 'conflicts', 'customers', 'amps', 'jobs', 'jobParts', 'jobLabour', 'tubeLots', 'stockTubes', 'matchedSets', 'jobEvents', 'invoices', 'procedureGates', 'procedureRuns', 'rigs', 'rigTubeSets', 'rigGigs', 'rigShares'] as const

@@ -92,6 +92,30 @@ const FIELDS: Record<string, Record<string, FieldInfo>> = {
     tubeCount: { label: 'tubes', kind: 'number' },
     capCount: { label: 'capacitors', kind: 'number' },
   },
+  rigs: {
+    description: { label: 'description', kind: 'text' },
+    serial: { label: 'serial', kind: 'text' },
+    tubes: { label: 'tubes', kind: 'other' },
+    biasMode: { label: 'bias', kind: 'enum', options: { fixed: 'Fixed bias', cathode: 'Cathode bias' } },
+    speakerLoadOhms: { label: 'speaker load (ohms)', kind: 'number' },
+    outputTapOhms: { label: 'output tap (ohms)', kind: 'number' },
+    retubeHours: { label: 'retube after (hours)', kind: 'number' },
+    retubeMonths: { label: 'retube after (months)', kind: 'number' },
+    notes: { label: 'notes', kind: 'longtext' },
+  },
+  rigTubeSets: {
+    fittedOn: { label: 'fitted on', kind: 'date' },
+    fittedBy: { label: 'fitted by', kind: 'text' },
+    tubes: { label: 'tubes', kind: 'other' },
+    readings: { label: 'readings', kind: 'other' },
+    spare: { label: 'spare', kind: 'enum', options: { true: 'Spare set', false: 'Fitted' } },
+    retiredOn: { label: 'retired on', kind: 'date' },
+  },
+  rigGigs: {
+    playedOn: { label: 'played on', kind: 'date' },
+    hours: { label: 'hours', kind: 'number' },
+    note: { label: 'note', kind: 'text' },
+  },
 }
 
 export function fieldInfo(table: string, field: string): FieldInfo {
@@ -134,5 +158,8 @@ export function recordTitle(table: string, row: Record<string, unknown> | undefi
   else if (table === 'stockTubes' || table === 'matchedSets') name = String(row.label ?? '')
   else if (table === 'tubeLots') name = String(row.maker || row.tubeType || '')
   else if (table === 'procedureRuns' || table === 'procedureGates') name = findProcedure(String(row.procedureId))?.title ?? ''
+  else if (table === 'rigs') name = String(row.description ?? '')
+  else if (table === 'rigTubeSets') name = String(row.fittedOn ?? '')
+  else if (table === 'rigGigs') name = String(row.playedOn ?? '')
   return name ? `${noun} '${clip(name, 60)}'` : noun
 }

@@ -4,6 +4,6 @@ import { handlePush } from '../../utils/sync/push'
 export default defineEventHandler(async (event) => {
   await requireUserId(event)
   const body = await validBody(event, pushBodySchema)
-  const access = await withRetry(() => requireShopRole(event, body.shopId))
+  const access = await withRetry(() => requireShopRole(event, body.shopId, undefined, { personal: true }))
   return handlePush(access, body)
 })

@@ -15,12 +15,17 @@ export const users = mysqlTable('users', {
   deletedAt: stamp('deleted_at'),
 }, t => [uniqueIndex('users_email_uq').on(t.email)])
 
+export const SHOP_KINDS = ['shop', 'personal'] as const
+
 export const shops = mysqlTable('shops', {
   id: uuid('id').primaryKey(),
   name: varchar('name', { length: 120 }).notNull(),
+  // 'personal': one user's own space (their rigs), never shown or acted on as a shop.
+  kind: mysqlEnum('kind', SHOP_KINDS).notNull().default('shop'),
+  personalOf: uuid('personal_of'),
   ...timestamps(),
   deletedAt: stamp('deleted_at'),
-})
+}, t => [uniqueIndex('shops_personal_of_uq').on(t.personalOf)])
 
 export const memberships = mysqlTable('memberships', {
   shopId: uuid('shop_id').notNull().references(() => shops.id),

@@ -25,9 +25,12 @@ export const amps = mysqlTable('amps', {
   biasMode: mysqlEnum('bias_mode', ['fixed', 'cathode']).notNull().default('fixed'),
   rectifier: varchar('rectifier', { length: 60 }).notNull().default(''),
   notes: text('notes').notNull(),
+  // A player's rig shared with this shop, picked at check-in.
+  rigId: uuid('rig_id'),
 }, t => [
   index('amps_shop_version_idx').on(t.shopId, t.version),
   index('amps_customer_idx').on(t.customerId),
+  index('amps_rig_idx').on(t.rigId),
 ])
 
 export const jobs = mysqlTable('jobs', {

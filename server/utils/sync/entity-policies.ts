@@ -50,6 +50,20 @@ async function mustBeMember(ctx: ApplyContext, userId: unknown, what: string, ro
   if (!m || (roles && !roles.includes(m.role))) reject(`${what} is not a ${roles ? roles.join(' or ') : 'member'} of this shop`)
 }
 
+/** Rig records live only in a player's personal space, never in a shop. */
+async function mustBePersonal(ctx: ApplyContext) {
+  const [shop] = await ctx.tx.select({ kind: tables.shops.kind }).from(tables.shops).where(eq(tables.shops.id, ctx.shopId))
+  if (shop?.kind !== 'personal') reject('rigs are kept in your own space, not in a shop', 'forbidden')
+}
+
+/** A shop may link an amp only to a rig its player shares with this shop now. */
+async function mustBeSharedRig(ctx: ApplyContext, rigId: unknown) {
+  const t = tables.rigShares
+  const [share] = await ctx.tx.select({ id: t.id }).from(t)
+    .where(and(eq(t.rigId, String(rigId)), eq(t.sharedShopId, ctx.shopId), isNull(t.deletedAt)))
+  if (!share) reject('that rig is not shared with this shop')
+}
+
 function procedureFor(ctx: ApplyContext, id: unknown): ProcedureDefinition {
   const procedure = findProcedure(String(id))
   if (!procedure) return reject('there is no such procedure')
@@ -111,7 +125,10 @@ export const ENTITY_POLICIES: Record<EntityTable, EntityPolicy> = {
   },
   amps: {
     table: tables.amps,
-    check: (ctx, next) => mustExist(ctx, 'customers', next.customerId, 'customer'),
+    async check(ctx, next, before) {
+      await mustExist(ctx, 'customers', next.customerId, 'customer')
+      if (next.rigId && next.rigId !== before?.rigId) await mustBeSharedRig(ctx, next.rigId)
+    },
   },
   jobs: {
     table: tables.jobs,
@@ -180,5 +197,35 @@ export const ENTITY_POLICIES: Record<EntityTable, EntityPolicy> = {
     table: tables.procedureRuns,
     ownReason: 'only the person running it (or an owner) may change a run',
     check: checkRun,
+  },
+  rigs: {
+    table: tables.rigs,
+    check: ctx => mustBePersonal(ctx),
+  },
+  rigTubeSets: {
+    table: tables.rigTubeSets,
+    async check(ctx, next) {
+      await mustBePersonal(ctx)
+      await mustExist(ctx, 'rigs', next.rigId, 'rig')
+    },
+  },
+  rigGigs: {
+    table: tables.rigGigs,
+    async check(ctx, next) {
+      await mustBePersonal(ctx)
+      await mustExist(ctx, 'rigs', next.rigId, 'rig')
+    },
+  },
+  rigShares: {
+    table: tables.rigShares,
+    async check(ctx, next) {
+      await mustBePersonal(ctx)
+      await mustExist(ctx, 'rigs', next.rigId, 'rig')
+      const s = tables.shops
+      const [m] = await ctx.tx.select({ role: tables.memberships.role }).from(tables.memberships)
+        .innerJoin(s, eq(s.id, tables.memberships.shopId))
+        .where(and(eq(tables.memberships.shopId, String(next.sharedShopId)), eq(tables.memberships.userId, ctx.userId), eq(s.kind, 'shop'), isNull(s.deletedAt)))
+      if (!m) reject('you can share a rig only with a shop you belong to')
+    },
   },
 }

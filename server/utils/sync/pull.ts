@@ -59,6 +59,11 @@ const PLAYER_SEES: Record<EntityTable, (t: EntityColumns, a: Access, scope: Scop
   // A player's own backstage checks, and the runs on their jobs (the service record shows them).
   procedureGates: (t, a, s) => or(eq(t.createdBy, a.userId), inIds(t.jobId, s.jobIds)),
   procedureRuns: (t, a, s) => or(eq(t.createdBy, a.userId), inIds(t.jobId, s.jobIds)),
+  // Rig records live in the player's personal space, where they are the only member.
+  rigs: (t, a) => eq(t.createdBy, a.userId),
+  rigTubeSets: (t, a) => eq(t.createdBy, a.userId),
+  rigGigs: (t, a) => eq(t.createdBy, a.userId),
+  rigShares: (t, a) => eq(t.createdBy, a.userId),
 }
 
 async function readEntities(tx: Tx, a: Access, scope: Scope | null, table: EntityTable, from: number, to: number): Promise<RowChange[]> {

@@ -22,6 +22,16 @@ export const SET_SIZES = [2, 4] as const
 const isoDay = z.iso.date({ message: 'use a date like 2026-12-08' })
 // A Tubes library entry: a built-in id ("6l6gc") or a shop entry's id.
 const tubeType = z.string().trim().min(1, { message: 'pick a tube type' }).max(64)
+const day = z.iso.date({ message: 'use a date like 2026-12-08' })
+const position = z.string().trim().min(1, { message: 'name the socket' }).max(16)
+const rigTube = z.object({ position, type: z.string().trim().min(1, { message: 'name the tube type' }).max(40) })
+const ohms = z.number().positive({ message: 'must be more than 0 ohms' }).max(1000)
+const rigReading = z.object({
+  on: day,
+  position,
+  mA: z.number().positive({ message: 'must be more than 0 mA' }).max(1000),
+  plateVolts: z.number().positive({ message: 'must be more than 0 V' }).max(2000).nullable(),
+})
 
 export const ENTITY_FIELDS = {
   customers: z.object({
@@ -40,6 +50,7 @@ export const ENTITY_FIELDS = {
     biasMode: z.enum(['fixed', 'cathode']),
     rectifier: text(60),
     notes: text(2000),
+    rigId: id.nullable(),
   }),
   jobs: z.object({
     customerId: id,
@@ -139,6 +150,37 @@ export const ENTITY_FIELDS = {
     endedAt: z.union([z.literal(''), at]),
     endReason: text(500),
   }),
+  // A player's own amp and its history; kept in the player's personal space.
+  rigs: z.object({
+    description: text(200).min(1, { message: 'describe the amp' }),
+    serial: text(80),
+    tubes: z.array(rigTube).max(32),
+    biasMode: z.enum(['fixed', 'cathode']),
+    speakerLoadOhms: ohms.nullable(),
+    outputTapOhms: ohms.nullable(),
+    retubeHours: z.number().positive({ message: 'must be more than 0 hours' }).max(100_000).nullable(),
+    retubeMonths: z.number().positive({ message: 'must be more than 0 months' }).max(600).nullable(),
+    notes: text(2000),
+  }),
+  rigTubeSets: z.object({
+    rigId: id,
+    fittedOn: day,
+    fittedBy: text(120),
+    tubes: z.array(rigTube).max(32),
+    readings: z.array(rigReading).max(2000),
+    spare: z.boolean(),
+    retiredOn: z.union([z.literal(''), day]),
+  }),
+  rigGigs: z.object({
+    rigId: id,
+    playedOn: day,
+    hours: z.number().positive({ message: 'must be more than 0 hours' }).max(24, { message: 'at most 24 hours in a day' }),
+    note: text(200),
+  }),
+  rigShares: z.object({
+    rigId: id,
+    sharedShopId: id,
+  }),
 } as const
 
 export type EntityTable = keyof typeof ENTITY_FIELDS
@@ -157,6 +199,10 @@ export const ENTITY_PREFIX = {
   measurements: 'measurement',
   procedureGates: 'procedureGate',
   procedureRuns: 'procedureRun',
+  rigs: 'rig',
+  rigTubeSets: 'rigTubeSet',
+  rigGigs: 'rigGig',
+  rigShares: 'rigShare',
 } as const satisfies Record<EntityTable, string>
 
 type Prefix<T extends EntityTable> = (typeof ENTITY_PREFIX)[T]
@@ -166,12 +212,13 @@ export const ENTITY_NOUNS: Record<EntityTable, string> = {
   customers: 'Customer', amps: 'Amp', jobs: 'Job', jobParts: 'Part', jobLabour: 'Labour',
   tubeLots: 'Tube lot', stockTubes: 'Stock tube', matchedSets: 'Matched set', notes: 'Note',
   measurements: 'Bench result', procedureGates: 'Safety check', procedureRuns: 'Procedure run',
+  rigs: 'Rig', rigTubeSets: 'Tube set', rigGigs: 'Gig', rigShares: 'Rig share',
 }
 
 /** Fields a create may leave out, with their defaults. */
 export const ENTITY_DEFAULTS: { [T in EntityTable]: Partial<EntityFields<T>> } = {
   customers: { email: '', phone: '', notes: '', playerUserId: null },
-  amps: { serial: '', tubeComplement: '', powerTubeCount: 2, biasMode: 'fixed', rectifier: '', notes: '' },
+  amps: { serial: '', tubeComplement: '', powerTubeCount: 2, biasMode: 'fixed', rectifier: '', notes: '', rigId: null },
   jobs: { accessories: '', photos: [], promisedFor: '', assignedTo: null, priority: 'normal', status: 'checked-in' },
   jobParts: { unitCostCents: 0 },
   jobLabour: { description: '', techId: null },
@@ -182,6 +229,10 @@ export const ENTITY_DEFAULTS: { [T in EntityTable]: Partial<EntityFields<T>> } =
   measurements: { label: null, jobId: null, rigId: null },
   procedureGates: { jobId: null },
   procedureRuns: { variant: '', jobId: null, tubeCount: 2, capCount: 3, status: 'running', stepIndex: 0, readings: {}, warnings: [], endedAt: '', endReason: '' },
+  rigs: { serial: '', tubes: [], biasMode: 'fixed', speakerLoadOhms: null, outputTapOhms: null, retubeHours: null, retubeMonths: null, notes: '' },
+  rigTubeSets: { fittedBy: '', tubes: [], readings: [], spare: false, retiredOn: '' },
+  rigGigs: { note: '' },
+  rigShares: {},
 }
 
 /** Fields set when the record is made and never by `.setFields` (a setFields naming one drops it). */
@@ -191,10 +242,13 @@ export const ENTITY_FIXED: Partial<Record<EntityTable, readonly string[]>> = {
   stockTubes: ['lotId'],
   // A set is the tubes it was matched from; to change them, delete it and match again.
   matchedSets: ['tubeType', 'tubeIds', 'size', 'spreadFraction', 'sorterResultId'],
+  rigTubeSets: ['rigId'],
+  rigGigs: ['rigId'],
 }
 
 /** Records that are made once and never edited: no `.setFields` mutation. */
-export const INSERT_ONLY = ['measurements'] as const satisfies readonly EntityTable[]
+// A rig share is made and revoked (deleted), never edited.
+export const INSERT_ONLY = ['measurements', 'rigShares'] as const satisfies readonly EntityTable[]
 type InsertOnly = (typeof INSERT_ONLY)[number]
 
 function entityMutations<T extends EntityTable>(table: T) {
@@ -230,6 +284,10 @@ export const ENTITY_MUTATIONS = {
   ...entityMutations('measurements'),
   ...entityMutations('procedureGates'),
   ...entityMutations('procedureRuns'),
+  ...entityMutations('rigs'),
+  ...entityMutations('rigTubeSets'),
+  ...entityMutations('rigGigs'),
+  ...entityMutations('rigShares'),
 }
 
 /** `job.setFields` -> { table: 'jobs', verb: 'setFields' }; undefined for non-entity mutations. */
@@ -247,3 +305,7 @@ export function parseEntityCreate<T extends EntityTable>(table: T, args: { id: s
   const { id: _id, ...rest } = args
   return ENTITY_FIELDS[table].safeParse({ ...ENTITY_DEFAULTS[table], ...rest }) as z.ZodSafeParseResult<EntityFields<T>>
 }
+
+/** Records kept in the person's own space (shops.kind = 'personal'), synced by the device's second engine. */
+export const PERSONAL_TABLES = ['rigs', 'rigTubeSets', 'rigGigs', 'rigShares'] as const satisfies readonly EntityTable[]
+export const isPersonalTable = (table: string) => (PERSONAL_TABLES as readonly string[]).includes(table)
