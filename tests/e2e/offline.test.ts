@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
-import { apiLogin, BASE, hydrated, phone, browserForFile } from './helpers/browser'
+import { apiLogin, BASE, hydrated, phone, browserForFile, openWithServiceWorker } from './helpers/browser'
 
 const browser = browserForFile({ artifacts: true })
 
@@ -15,14 +15,7 @@ describe('offline first, in the browser', () => {
     await apiLogin(page, 'tech@larkspur.example')
 
     // First visit online: the service worker installs and precaches the app.
-    await page.goto(`${BASE}/notebook`)
-    await hydrated(page)
-    await page.evaluate(async () => {
-      await navigator.serviceWorker.ready
-    })
-    await page.reload()
-    await hydrated(page)
-    expect(await page.evaluate(() => !!navigator.serviceWorker.controller)).toBe(true)
+    expect(await openWithServiceWorker(page, '/notebook')).toBe(true)
     await chip(page, 'synced').waitFor({ timeout: 20_000 })
 
     // No network at all: the shell still opens, from the service worker.

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto'
 import { describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
-import { apiLogin, BASE, hydrated, phone, browserForFile } from './helpers/browser'
+import { apiLogin, BASE, hydrated, phone, browserForFile, openWithServiceWorker } from './helpers/browser'
 
 const browser = browserForFile({ artifacts: true })
 
@@ -57,13 +57,7 @@ describe('a guided procedure, on a phone', () => {
     await apiLogin(page, 'tech@larkspur.example')
 
     // Online once so the service worker precaches every screen, then the job reaches this device.
-    await page.goto(`${BASE}/jobs/${jobId}`)
-    await hydrated(page)
-    await page.evaluate(async () => {
-      await navigator.serviceWorker.ready
-    })
-    await page.reload()
-    await hydrated(page)
+    await openWithServiceWorker(page, `/jobs/${jobId}`)
     await page.getByTestId('run-procedure').waitFor({ timeout: 20_000 })
     await chip(page, 'synced').waitFor({ timeout: 20_000 })
 

@@ -1,7 +1,7 @@
 import { mkdirSync } from 'node:fs'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
-import { apiLogin, BASE, hydrated, launch, phone } from './helpers/browser'
+import { apiLogin, BASE, hydrated, launch, phone, openWithServiceWorker } from './helpers/browser'
 
 let browser: Browser
 beforeAll(async () => {
@@ -23,14 +23,7 @@ describe('a player\'s rigs in the browser', () => {
     await apiLogin(page, 'dana@players.example')
 
     // First visit online: the service worker installs, and the personal space syncs down.
-    await page.goto(`${BASE}/rigs`)
-    await hydrated(page)
-    await page.evaluate(async () => {
-      await navigator.serviceWorker.ready
-    })
-    await page.reload()
-    await hydrated(page)
-    expect(await page.evaluate(() => !!navigator.serviceWorker.controller)).toBe(true)
+    expect(await openWithServiceWorker(page, '/rigs')).toBe(true)
     const combo = page.locator('[data-testid="rig-card"]', { hasText: '18 W two-EL84 combo' })
     await combo.waitFor({ timeout: 20_000 })
     await chip(page, 'synced').waitFor({ timeout: 20_000 })

@@ -60,3 +60,18 @@ export async function pageAs(browser: Browser, email: string, path: string, opti
   await hydrated(page)
   return page
 }
+
+/**
+ * First visit online: open `path`, wait for the service worker to take control (it precaches the
+ * app), so a later visit with the network cut is served from the device.
+ */
+export async function openWithServiceWorker(page: Page, path: string) {
+  await page.goto(`${BASE}${path}`)
+  await hydrated(page)
+  await page.evaluate(async () => {
+    await navigator.serviceWorker.ready
+  })
+  await page.reload()
+  await hydrated(page)
+  return page.evaluate(() => !!navigator.serviceWorker.controller)
+}
