@@ -10,7 +10,7 @@ import { fieldErrors, validateCreate, type FieldErrors } from '~/utils/jobs/chec
 type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false
 const ONE_SHAPE: { [T in EntityTable]: Same<EntityRow<T>, EntityRecords[T]> } = {
   customers: true, amps: true, jobs: true, jobParts: true, jobLabour: true, tubeLots: true, stockTubes: true, matchedSets: true, notes: true, measurements: true, procedureGates: true, procedureRuns: true,
-  rigs: true, rigTubeSets: true, rigGigs: true, rigShares: true,
+  rigs: true, rigTubeSets: true, rigGigs: true, rigShares: true, rigSuggestions: true,
 }
 const INVOICE_SHAPE: Same<InvoiceRow, InvoiceRecord> = true
 void ONE_SHAPE

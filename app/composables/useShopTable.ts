@@ -1,7 +1,7 @@
 import { isPersonalTable } from '#shared/utils/sync/entities'
 import type { LocalDb } from '~/utils/sync/local-db'
 
-type ShopTable = 'customers' | 'amps' | 'jobs' | 'jobParts' | 'jobLabour' | 'tubeLots' | 'stockTubes' | 'matchedSets' | 'jobEvents' | 'invoices' | 'notes' | 'measurements' | 'procedureGates' | 'procedureRuns' | 'rigs' | 'rigTubeSets' | 'rigGigs' | 'rigShares'
+type ShopTable = 'customers' | 'amps' | 'jobs' | 'jobParts' | 'jobLabour' | 'tubeLots' | 'stockTubes' | 'matchedSets' | 'jobEvents' | 'invoices' | 'notes' | 'measurements' | 'procedureGates' | 'procedureRuns' | 'rigs' | 'rigTubeSets' | 'rigGigs' | 'rigShares' | 'rigSuggestions'
 type RowOf<K extends ShopTable> = LocalDb[K] extends import('dexie').Table<infer R, string> ? R : never
 
 /** Every live (not deleted) row of one table in the active shop (rig records: the person's own space), following the device database. */

@@ -41,7 +41,21 @@ export const useRigsStore = defineStore('rigs', () => {
 
   const create = (fields: RigInput) => rigTable.create(fields)
   const edit = (id: string, fields: RigInput) => rigTable.edit(id, fields)
-  const remove = (id: string) => rigTable.remove(id)
+  /** What deleting the rig takes with it, in words for the confirmation. */
+  function whatGoes(rigId: string) {
+    const n = (k: number, one: string, many = `${one}s`) => `${k} ${k === 1 ? one : many}`
+    const shares = sharesOf(rigId).length
+    return `This deletes the rig, its ${n(setsOf(rigId).length, 'tube set')} with their readings and its ${n(gigsOf(rigId).length, 'gig')}`
+      + (shares ? `, and stops sharing it with ${n(shares, 'shop')}.` : '.')
+  }
+
+  /** The rig and everything kept with it; the shares go first, so no shop sees it a moment longer. */
+  async function remove(id: string) {
+    for (const s of sharesOf(id)) await shareTable.remove(s.id)
+    for (const g of gigsOf(id)) await gigTable.remove(g.id)
+    for (const s of setsOf(id)) await setTable.remove(s.id)
+    await rigTable.remove(id)
+  }
 
   /** A new set fitted (or carried as a spare); a fitted set retires the one it replaces. */
   async function fitSet(fields: SetInput) {
@@ -64,5 +78,10 @@ export const useRigsStore = defineStore('rigs', () => {
   const share = (rigId: string, sharedShopId: string) => shareTable.create({ rigId, sharedShopId })
   const revoke = (shareId: string) => shareTable.remove(shareId)
 
-  return { rigs, loaded, byId, setsOf, gigsOf, sharesOf, readingsOf, reminderOf, create, edit, remove, fitSet, addReadings, retireSet, removeSet, logGig, removeGig, share, revoke }
+  /** The player adopts a shop's suggestion: its thresholds become theirs (a threshold it leaves out stays as it was). */
+  const adopt = (rigId: string, s: { retubeHours: number | null, retubeMonths: number | null }) => rigTable.edit(rigId, {
+    ...(s.retubeHours === null ? {} : { retubeHours: s.retubeHours }), ...(s.retubeMonths === null ? {} : { retubeMonths: s.retubeMonths }),
+  })
+
+  return { rigs, loaded, byId, setsOf, gigsOf, sharesOf, readingsOf, reminderOf, create, edit, remove, whatGoes, adopt, fitSet, addReadings, retireSet, removeSet, logGig, removeGig, share, revoke }
 })

@@ -6,6 +6,7 @@ export interface RigHistoryJob {
   readings: { tool: string, label: string | null, outputs: Record<string, unknown>, createdAt: string }[]
   notes: { title: string, body: string, createdAt: string }[]
 }
+export interface OnlineSuggestion { id: string, shopId: string, shopName: string, retubeHours: number | null, retubeMonths: number | null, note: string, suggestedBy: string, createdAt: string }
 export type SharedRig = Omit<RigRecord, 'deleted' | 'pending'> & { access: 'own' | 'shared', playerUserId: string, playerName?: string }
 
 /**
@@ -14,6 +15,7 @@ export type SharedRig = Omit<RigRecord, 'deleted' | 'pending'> & { access: 'own'
  */
 export const useRigsOnlineStore = defineStore('rigsOnline', () => {
   const history = ref<Record<string, RigHistoryJob[]>>({})
+  const suggestions = ref<Record<string, OnlineSuggestion[]>>({})
   const shared = ref<SharedRig[]>([])
   const error = ref('')
   const loading = ref(false)
@@ -33,13 +35,14 @@ export const useRigsOnlineStore = defineStore('rigsOnline', () => {
   }
 
   const loadHistory = (rigId: string) => run(async () => {
-    const r = await $fetch<{ history: RigHistoryJob[] }>(`/api/rigs/${rigId}`)
+    const r = await $fetch<{ history: RigHistoryJob[], suggestions: OnlineSuggestion[] }>(`/api/rigs/${rigId}`)
     history.value = { ...history.value, [rigId]: r.history }
+    suggestions.value = { ...suggestions.value, [rigId]: r.suggestions }
   })
 
   const loadShared = () => run(async () => {
     shared.value = (await $fetch<{ items: SharedRig[] }>('/api/rigs')).items.filter(r => r.access === 'shared')
   })
 
-  return { history, shared, error, loading, loadHistory, loadShared }
+  return { history, suggestions, shared, error, loading, loadHistory, loadShared }
 })

@@ -98,9 +98,46 @@ export const useStockStore = defineStore('stock', () => {
     await setTable.edit(setId, { status: 'fitted', fittedJobId: jobId, fittedAt: new Date().toISOString(), priceCents })
   }
 
+  const invoices = useShopTable('invoices').list
+
+  /** Why a fitted set cannot go back to stock now ('' when it can); the server checks the same. */
+  function whyNotReturn(set: MatchedSetRecord, job: { status: string } | undefined): string {
+    if (set.status !== 'fitted') return `Set ${set.label} is in stock.`
+    if (job?.status === 'closed') return `Set ${set.label} cannot go back to stock: its job is closed, and its parts are the service record.`
+    const paid = invoices.value.find(i => i.jobId === set.fittedJobId && i.state === 'paid')
+    return paid ? `Set ${set.label} cannot go back to stock: the job's invoice ${paid.number} is paid with it.` : ''
+  }
+
+  /** A fitted set back in stock: one change; the server takes the job's part for it off the job. */
+  async function returnToStock(setId: string, job?: { status: string }) {
+    const set = await setTable.required(setId)
+    const why = whyNotReturn(set, job)
+    if (why) throw new Error(why)
+    await setTable.edit(setId, { status: 'in-stock', fittedJobId: null, fittedAt: '', priceCents: null })
+  }
+
+  /** A set in stock goes (its tubes stay in their lot, matched to nothing); a fitted set is on a job's record. */
+  async function removeSet(setId: string) {
+    const set = await setTable.required(setId)
+    if (set.status === 'fitted') throw new Error(`Set ${set.label} is fitted to a job, so it cannot be deleted: return it to stock first.`)
+    await setTable.remove(setId)
+  }
+
+  /** The sets made of a lot's tubes. */
+  const setsOfLot = (lotId: string) => sets.value.filter(s => tubesOfSet(s).some(t => t.lotId === lotId))
+
+  /** A lot, its tubes' readings and the sets in stock made of them; refused while one of those sets is fitted. */
+  async function removeLot(lotId: string) {
+    const fittedSet = setsOfLot(lotId).find(s => s.status === 'fitted')
+    if (fittedSet) throw new Error(`This lot's tubes are in set ${fittedSet.label}, which is fitted to a job: return the set to stock first, or keep the lot.`)
+    for (const s of setsOfLot(lotId)) await setTable.remove(s.id)
+    for (const t of tubesOfLot(lotId)) await tubeTable.remove(t.id)
+    await lotTable.remove(lotId)
+  }
+
   return {
-    loaded, lots, tubes, sets, inStock, tubesOfLot, tubesOfSet, fittedTo, lotCode, lotOfSet,
+    loaded, lots, tubes, sets, inStock, tubesOfLot, tubesOfSet, setsOfLot, fittedTo, lotCode, lotOfSet,
     lot: lotTable.byId, tube: tubeTable.byId, set: setTable.byId,
-    addLot, saveSorterRun, fit, removeLot: lotTable.remove, removeSet: setTable.remove,
+    addLot, saveSorterRun, fit, whyNotReturn, returnToStock, removeLot, removeSet,
   }
 })

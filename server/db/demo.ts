@@ -189,3 +189,8 @@ export const DEMO_RIGS: DemoRig[] = [
 export const demoRigSetId = (n: number) => idOf('012', n)
 export const demoRigGigId = (rig: number, n: number) => idOf('013', rig * 1000 + n)
 export const demoRigShareId = (rig: number) => idOf('014', rig)
+/** The shop's retube suggestion for Dana's shared combo (invented); Dana has not adopted it. */
+export const DEMO_RIG_SUGGESTION = {
+  id: idOf('015', 1), rigId: DANA_COMBO_RIG, by: TECH!, suggestedBy: 'Owen Pryde', retubeHours: 150, retubeMonths: 12,
+  note: 'Played hard, four nights a week: have the power tubes checked at 150 h.',
+}

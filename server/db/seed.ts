@@ -12,7 +12,7 @@ import { setSpread } from '../../shared/utils/bench/set-spread'
 import { bumpShopVersion, lockShopVersion } from '../utils/transactions'
 import {
   DEMO_AMPS, DEMO_CUSTOMERS, DEMO_INVOICE, DEMO_JOBS, DEMO_LABOUR, DEMO_LOTS, DEMO_PARTS, DEMO_PERSONAL_SPACES, DEMO_RIGS, DEMO_RUNS, DEMO_SEED_CLIENT, DEMO_SETS,
-  DEMO_SETTINGS, DEMO_SHOP, DEMO_STOCK_TUBES, DEMO_USERS, demoEventId, demoRigGigId, demoRigSetId, demoRigShareId,
+  DEMO_RIG_SUGGESTION, DEMO_SETTINGS, DEMO_SHOP, DEMO_STOCK_TUBES, DEMO_USERS, demoEventId, demoRigGigId, demoRigSetId, demoRigShareId,
 } from './demo'
 
 const url = process.env.NUXT_DATABASE_URL
@@ -182,6 +182,18 @@ async function seedRigs(tx: Tx) {
     }
     await bumpShopVersion(tx, space.id, version)
   }
+  const { id, by, ...fields } = DEMO_RIG_SUGGESTION
+  const [had] = await tx.select({ id: schema.rigSuggestions.id }).from(schema.rigSuggestions).where(eq(schema.rigSuggestions.id, id))
+  if (had) return
+  // In the shop: the bench's suggestion for the rig Dana shares with it.
+  const version = (await lockShopVersion(tx, SHOP)) + 1
+  const when = at(20)
+  const stamp = { v: version, c: DEMO_SEED_CLIENT, u: by, at: when.toISOString() }
+  await tx.insert(schema.rigSuggestions).values({
+    id, ...fields, shopId: SHOP, version, fieldStamps: Object.fromEntries(Object.keys(fields).map(k => [k, stamp])),
+    createdBy: by, updatedBy: by, createdAt: when, updatedAt: when,
+  })
+  await bumpShopVersion(tx, SHOP, version)
 }
 
 const pool = createPool({ uri: url, timezone: 'Z', connectionLimit: 2 })

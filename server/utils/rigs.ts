@@ -80,11 +80,22 @@ export async function rigDetail(userId: string, activeShopId: string | null | un
     db.select().from(g).where(and(eq(g.rigId, rig.id), eq(g.shopId, rig.shopId), isNull(g.deletedAt))).orderBy(desc(g.playedOn)),
   ])
   const base = { ...card(rig), access, sets: sets.map(strip), gigs: gigs.map(strip) }
-  if (access === 'shared') return { ...base, shares: [], history: [] }
+  if (access === 'shared') return { ...base, shares: [], history: [], suggestions: await suggestionsFor(rig.id, activeShopId!) }
   const shares = await db.select({ id: sh.id, sharedShopId: sh.sharedShopId, shopName: tables.shops.name, createdAt: sh.createdAt })
     .from(sh).innerJoin(tables.shops, eq(tables.shops.id, sh.sharedShopId))
     .where(and(eq(sh.rigId, rig.id), eq(sh.shopId, rig.shopId), isNull(sh.deletedAt)))
-  return { ...base, shares, history: await shopHistory(rig.id) }
+  return { ...base, shares, history: await shopHistory(rig.id), suggestions: await suggestionsFor(rig.id) }
+}
+
+/** Retube thresholds shops suggested for the rig, newest first (`shopId`: that shop's only). */
+async function suggestionsFor(rigId: string, shopId?: string) {
+  const s = tables.rigSuggestions
+  return useDb().select({
+    id: s.id, shopId: s.shopId, shopName: tables.shops.name, retubeHours: s.retubeHours, retubeMonths: s.retubeMonths,
+    note: s.note, suggestedBy: s.suggestedBy, createdAt: s.createdAt,
+  }).from(s).innerJoin(tables.shops, eq(tables.shops.id, s.shopId))
+    .where(and(eq(s.rigId, rigId), isNull(s.deletedAt), shopId ? eq(s.shopId, shopId) : undefined))
+    .orderBy(desc(s.createdAt)).limit(20)
 }
 
 /**

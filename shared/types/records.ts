@@ -1,7 +1,7 @@
 // One shape per synced record, taken from the Drizzle schema (type-only: no server code reaches
 // the client). A record as the device holds it is the table's row as JSON carries it, without the
 // server's bookkeeping (field stamps, deletion time), plus what the device adds.
-import type { amps, customers, invoices, jobLabour, jobParts, jobs, matchedSets, measurements, notes, procedureGates, procedureRuns, rigGigs, rigShares, rigs, rigTubeSets, stockTubes, tubeLots } from '../../server/db/schema'
+import type { amps, customers, invoices, jobLabour, jobParts, jobs, matchedSets, measurements, notes, procedureGates, procedureRuns, rigGigs, rigShares, rigSuggestions, rigs, rigTubeSets, stockTubes, tubeLots } from '../../server/db/schema'
 
 /** A column as JSON brings it: dates arrive as ISO strings. */
 type Wire<R> = { [K in keyof R]: R[K] extends Date ? string : R[K] extends Date | null ? string | null : R[K] }
@@ -32,6 +32,7 @@ export type RigRecord = DeviceRecord<typeof rigs.$inferSelect>
 export type RigTubeSetRecord = DeviceRecord<typeof rigTubeSets.$inferSelect>
 export type RigGigRecord = DeviceRecord<typeof rigGigs.$inferSelect>
 export type RigShareRecord = DeviceRecord<typeof rigShares.$inferSelect>
+export type RigSuggestionRecord = DeviceRecord<typeof rigSuggestions.$inferSelect>
 /** Written by the server only; the device gets it without its timestamps. */
 export type InvoiceRecord = DeviceRecord<Omit<typeof invoices.$inferSelect, 'createdAt' | 'updatedAt'>>
 
@@ -53,4 +54,5 @@ export interface EntityRecords {
   rigTubeSets: RigTubeSetRecord
   rigGigs: RigGigRecord
   rigShares: RigShareRecord
+  rigSuggestions: RigSuggestionRecord
 }

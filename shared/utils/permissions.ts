@@ -39,6 +39,8 @@ export const PERMISSIONS = {
   rigTubeSets: { read: ['player'], create: ['player'], update: ['player'], remove: ['player'] },
   rigGigs: { read: ['player'], create: ['player'], update: ['player'], remove: ['player'] },
   rigShares: { read: ['player'], create: ['player'], remove: ['player'] },
+  // In the shop: the bench suggests retube thresholds for a rig shared with it; the player reads them.
+  rigSuggestions: { read: ['owner', 'tech', 'player'], create: BENCH, remove: BENCH },
 } as const satisfies Record<string, Partial<Record<Verb, readonly Role[]>>>
 
 export type RecordKind = keyof typeof PERMISSIONS

@@ -32,7 +32,7 @@ describe('records that point at another shop', () => {
     expect(r.body.results.map((x: { status: string }) => x.status)).toEqual(['rejected', 'rejected', 'rejected'])
     expect(r.body.results[0].reason).toBe('job not found in this shop')
     expect(r.body.results[1].reason).toBe('job not found in this shop')
-    expect(r.body.results[2].reason).toBe('rig not found in this shop')
+    expect(r.body.results[2].reason).toBe('rig not found')
     expect(await sql('select id from notes where id = ?', [noteId])).toHaveLength(0)
     expect(await sql('select id from measurements where id in (?, ?)', measurementIds)).toHaveLength(0)
 

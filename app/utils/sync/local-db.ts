@@ -152,6 +152,7 @@ export class LocalDb extends Dexie {
   rigTubeSets!: Table<EntityRow<'rigTubeSets'>, string>
   rigGigs!: Table<EntityRow<'rigGigs'>, string>
   rigShares!: Table<EntityRow<'rigShares'>, string>
+  rigSuggestions!: Table<EntityRow<'rigSuggestions'>, string>
 
   constructor(name: string) {
     super(name)
@@ -193,7 +194,11 @@ export class LocalDb extends Dexie {
       rigGigs: 'id, shopId, rigId',
       rigShares: 'id, shopId, rigId',
     })
+    // Retube thresholds a shop suggests for a rig shared with it (kept per shop).
+    this.version(6).stores({
+      rigSuggestions: 'id, shopId, rigId',
+    })
   }
 }
 
-export const VIEW_TABLES = ['notes', 'measurements', 'conflicts', 'customers', 'amps', 'jobs', 'jobParts', 'jobLabour', 'tubeLots', 'stockTubes', 'matchedSets', 'jobEvents', 'invoices', 'procedureGates', 'procedureRuns', 'rigs', 'rigTubeSets', 'rigGigs', 'rigShares'] as const
+export const VIEW_TABLES = ['notes', 'measurements', 'conflicts', 'customers', 'amps', 'jobs', 'jobParts', 'jobLabour', 'tubeLots', 'stockTubes', 'matchedSets', 'jobEvents', 'invoices', 'procedureGates', 'procedureRuns', 'rigs', 'rigTubeSets', 'rigGigs', 'rigShares', 'rigSuggestions'] as const

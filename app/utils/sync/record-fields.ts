@@ -116,6 +116,11 @@ const FIELDS: Record<string, Record<string, FieldInfo>> = {
     hours: { label: 'hours', kind: 'number' },
     note: { label: 'note', kind: 'text' },
   },
+  rigSuggestions: {
+    retubeHours: { label: 'retube after (hours)', kind: 'number' },
+    retubeMonths: { label: 'retube after (months)', kind: 'number' },
+    note: { label: 'note', kind: 'text' },
+  },
 }
 
 export function fieldInfo(table: string, field: string): FieldInfo {

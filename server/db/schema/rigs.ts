@@ -57,6 +57,20 @@ export const rigShares = mysqlTable('rig_shares', {
   index('rig_shares_shared_idx').on(t.sharedShopId),
 ])
 
+/** Retube thresholds a shop suggests for a rig shared with it (kept in the shop, not the player's space). */
+export const rigSuggestions = mysqlTable('rig_suggestions', {
+  ...synced(),
+  rigId: uuid('rig_id').notNull(),
+  retubeHours: double('retube_hours'),
+  retubeMonths: double('retube_months'),
+  note: varchar('note', { length: 200 }).notNull().default(''),
+  // The suggester's name as the server knows it (written by the server, whatever was sent).
+  suggestedBy: varchar('suggested_by', { length: 120 }).notNull().default(''),
+}, t => [
+  index('rig_suggestions_shop_version_idx').on(t.shopId, t.version),
+  index('rig_suggestions_rig_idx').on(t.rigId),
+])
+
 /** Retube reminders already e-mailed: one per threshold per fitted set. */
 export const rigReminders = mysqlTable('rig_reminders', {
   setId: uuid('set_id').notNull(),

@@ -87,6 +87,7 @@ export async function entityDelete(ctx: ApplyContext, table: EntityTable, args: 
   allowed(ctx, table, 'remove')
   const row = await lock(ctx, table, args.id, 'remove')
   if (row.deletedAt) return { status: 'applied', touched: true }
+  await policy.beforeDelete?.(ctx, row as never)
   const clashing = changedByOthers(ctx, row.fieldStamps, Object.keys(row.fieldStamps))
   if (clashing.length) {
     await recordConflict(ctx, { tableName: table, rowId: row.id, field: '_delete', serverValue: fieldsOf(table, row), clientValue: true, serverAuthor: row.updatedBy, serverChangedAt: row.updatedAt, note: 'deleted after someone else edited it' })
@@ -112,6 +113,7 @@ export async function resolveEntityField(ctx: ApplyContext, table: EntityTable, 
   allowed(ctx, table, verb)
   const row = await lock(ctx, table, rowId, verb)
   if (field === '_delete') {
+    if (value === true) await policy.beforeDelete?.(ctx, row as never)
     await ctx.tx.update(policy.table).set({ deletedAt: value === true ? ctx.now : null, version: ctx.version }).where(eq(policy.table.id, rowId))
     return
   }

@@ -26,6 +26,8 @@ export interface EntityPolicy {
   guard?: (ctx: ApplyContext, fields: Record<string, unknown>, row: Row) => void
   /** Refuse a record that points at something outside this shop. */
   check?: (ctx: ApplyContext, next: Record<string, unknown>, before?: Row) => Promise<void>
+  /** Refuse a delete (a set fitted to a job); `row` as stored. */
+  beforeDelete?: (ctx: ApplyContext, row: Row) => void | Promise<void>
   /** Rows the server writes alongside (the job timeline). */
   after?: (ctx: ApplyContext, next: Record<string, unknown>, before?: Row) => Promise<void>
 }
@@ -62,6 +64,37 @@ async function mustBeSharedRig(ctx: ApplyContext, rigId: unknown) {
   const [share] = await ctx.tx.select({ id: t.id }).from(t)
     .where(and(eq(t.rigId, String(rigId)), eq(t.sharedShopId, ctx.shopId), isNull(t.deletedAt)))
   if (!share) reject('that rig is not shared with this shop')
+}
+
+/**
+ * A bench result saved to a rig names one its saver may see: their own live rig, or one its player
+ * shares with this shop now (and is still a member of it).
+ */
+async function mustSeeRig(ctx: ApplyContext, rigId: unknown) {
+  if (rigId === null || rigId === undefined) return
+  if (await rigOwnedBy(ctx, rigId) === ctx.userId) return
+  if (!(await sharedNow(ctx, rigId))) reject('rig not found')
+}
+
+/** The player whose live rig this is (undefined: no such rig). */
+async function rigOwnedBy(ctx: ApplyContext, rigId: unknown) {
+  const r = tables.rigs
+  const [rig] = await ctx.tx.select({ createdBy: r.createdBy }).from(r)
+    .innerJoin(tables.shops, and(eq(tables.shops.id, r.shopId), eq(tables.shops.kind, 'personal')))
+    .where(and(eq(r.id, String(rigId)), isNull(r.deletedAt)))
+  return rig?.createdBy
+}
+
+/** Whether the rig's player shares it with this shop now and is still a member of it. */
+async function sharedNow(ctx: ApplyContext, rigId: unknown) {
+  const owner = await rigOwnedBy(ctx, rigId)
+  if (!owner) return false
+  const s = tables.rigShares
+  const m = tables.memberships
+  const [share] = await ctx.tx.select({ id: s.id }).from(s)
+    .innerJoin(m, and(eq(m.shopId, ctx.shopId), eq(m.userId, s.createdBy)))
+    .where(and(eq(s.rigId, String(rigId)), eq(s.createdBy, owner), eq(s.sharedShopId, ctx.shopId), isNull(s.deletedAt)))
+  return !!share
 }
 
 function procedureFor(ctx: ApplyContext, id: unknown): ProcedureDefinition {
@@ -179,8 +212,7 @@ export const ENTITY_POLICIES: Record<EntityTable, EntityPolicy> = {
     normalise: checkSavedResult,
     async check(ctx, next) {
       await mustExist(ctx, 'jobs', next.jobId, 'job')
-      // A rig is a player's amp record.
-      await mustExist(ctx, 'amps', next.rigId, 'rig')
+      await mustSeeRig(ctx, next.rigId)
     },
   },
   procedureGates: {
@@ -214,6 +246,18 @@ export const ENTITY_POLICIES: Record<EntityTable, EntityPolicy> = {
     async check(ctx, next) {
       await mustBePersonal(ctx)
       await mustExist(ctx, 'rigs', next.rigId, 'rig')
+    },
+  },
+  rigSuggestions: {
+    table: tables.rigSuggestions,
+    async check(ctx, next) {
+      if (next.retubeHours === null && next.retubeMonths === null) reject('suggest hours, months or both')
+      if (!(await sharedNow(ctx, next.rigId))) reject('that rig is not shared with this shop, so the shop cannot suggest for it', 'forbidden')
+    },
+    // Who suggested it, as the server knows them (not as the device said).
+    async after(ctx, next) {
+      const [u] = await ctx.tx.select({ name: tables.users.name }).from(tables.users).where(eq(tables.users.id, ctx.userId))
+      await ctx.tx.update(tables.rigSuggestions).set({ suggestedBy: (u?.name ?? '').slice(0, 120) }).where(eq(tables.rigSuggestions.id, String(next.id)))
     },
   },
   rigShares: {

@@ -26,7 +26,7 @@ const iso = (d: Date | null) => (d ? d.toISOString() : null)
 
 type Access = { userId: string, shopId: string, role: Role }
 /** What a player may see: their linked customer records and those customers' jobs. */
-interface Scope { customerIds: string[], jobIds: string[] }
+interface Scope { customerIds: string[], jobIds: string[], rigIds: string[] }
 
 const NONE = '00000000-0000-0000-0000-000000000000'
 const inIds = (col: Parameters<typeof inArray>[0], ids: string[]) => inArray(col, ids.length ? ids : [NONE])
@@ -37,7 +37,8 @@ async function playerScope(tx: Tx, a: Access): Promise<Scope | null> {
     .where(and(eq(tables.customers.shopId, a.shopId), eq(tables.customers.playerUserId, a.userId), isNull(tables.customers.deletedAt)))
   const customerIds = cs.map(c => c.id)
   const js = await tx.select({ id: tables.jobs.id }).from(tables.jobs).where(and(eq(tables.jobs.shopId, a.shopId), inIds(tables.jobs.customerId, customerIds)))
-  return { customerIds, jobIds: js.map(j => j.id) }
+  const rs = await tx.select({ id: tables.rigs.id }).from(tables.rigs).where(eq(tables.rigs.createdBy, a.userId))
+  return { customerIds, jobIds: js.map(j => j.id), rigIds: rs.map(r => r.id) }
 }
 
 type EntityColumns = (typeof ENTITY_POLICIES)[EntityTable]['table']
@@ -64,6 +65,8 @@ const PLAYER_SEES: Record<EntityTable, (t: EntityColumns, a: Access, scope: Scop
   rigTubeSets: (t, a) => eq(t.createdBy, a.userId),
   rigGigs: (t, a) => eq(t.createdBy, a.userId),
   rigShares: (t, a) => eq(t.createdBy, a.userId),
+  // In a shop: what the shop suggests for the player's own rigs.
+  rigSuggestions: (t, _a, s) => inIds(t.rigId, s.rigIds),
 }
 
 async function readEntities(tx: Tx, a: Access, scope: Scope | null, table: EntityTable, from: number, to: number): Promise<RowChange[]> {

@@ -70,9 +70,21 @@ async function checkNewSet(ctx: ApplyContext, set: SetFields) {
   await mustExist(ctx, 'measurements', set.sorterResultId, 'sorter result')
 }
 
+/** Returning a fitted set to stock: only while its job is still open to change, and its invoice not paid. */
+async function checkReturn(ctx: ApplyContext, set: SetFields, before: Row) {
+  if (set.fittedJobId || set.fittedAt || set.priceCents !== null) reject('a set back in stock is fitted to no job and has no price')
+  const jobId = String(before.fittedJobId)
+  const [job] = await ctx.tx.select({ status: tables.jobs.status }).from(tables.jobs).where(and(eq(tables.jobs.id, jobId), eq(tables.jobs.shopId, ctx.shopId)))
+  if (job?.status === 'closed') reject(`set ${String(before.label)} cannot go back to stock: its job is closed, and its parts are the service record`)
+  const inv = tables.invoices
+  const [paid] = await ctx.tx.select({ number: inv.number }).from(inv).where(and(eq(inv.jobId, jobId), eq(inv.shopId, ctx.shopId), eq(inv.state, 'paid')))
+  if (paid) reject(`set ${String(before.label)} cannot go back to stock: the job's invoice ${paid.number} is paid with it`)
+}
+
 async function checkSet(ctx: ApplyContext, next: Record<string, unknown>, before?: Row) {
   const set = next as SetFields
   if (!before) return checkNewSet(ctx, set)
+  if (before.status === 'fitted' && set.status === 'in-stock') return checkReturn(ctx, set, before)
   if (before.status === 'fitted' && FIT_FIELDS.some(f => JSON.stringify(before[f]) !== JSON.stringify(next[f]))) {
     reject(`set ${String(before.label)} is already fitted to a job: it has left stock`)
   }
@@ -85,9 +97,20 @@ async function checkSet(ctx: ApplyContext, next: Record<string, unknown>, before
   if (job?.status === 'closed' || job?.status === 'cancelled') reject(`the job is ${job.status}: a set can be fitted only to an open job`)
 }
 
-/** Fitting (in stock -> fitted): the job gets the set as one part, priced from the lots' cost unless a price was set. */
+/**
+ * Fitting (in stock -> fitted): the job gets the set as one part, priced from the lots' cost unless
+ * a price was set. Returning (fitted -> in stock): that part leaves the job. The part's id is the
+ * set's, so each move writes it exactly once.
+ */
 async function fitPart(ctx: ApplyContext, next: Record<string, unknown>, before?: Row) {
   const set = next as SetFields
+  const p = tables.jobParts
+  const partId = fittedPartId(set.id)
+  if (before?.status === 'fitted' && set.status === 'in-stock') {
+    await ctx.tx.update(p).set({ deletedAt: ctx.now, version: ctx.version, updatedBy: ctx.userId })
+      .where(and(eq(p.id, partId), eq(p.shopId, ctx.shopId), isNull(p.deletedAt)))
+    return
+  }
   if (!before || before.status === 'fitted' || set.status !== 'fitted') return
   const tubes = await ctx.tx.select({ lotId: tables.stockTubes.lotId }).from(tables.stockTubes).where(inArray(tables.stockTubes.id, set.tubeIds))
   const lotIds = [...new Set(tubes.map(r => r.lotId))]
@@ -99,25 +122,55 @@ async function fitPart(ctx: ApplyContext, next: Record<string, unknown>, before?
     unitCostCents: cost, unitPriceCents: set.priceCents ?? cost,
   }
   const stamp = stampFor(ctx)
-  await ctx.tx.insert(tables.jobParts).values({
-    ...part, id: fittedPartId(set.id), shopId: ctx.shopId, version: ctx.version, createdBy: ctx.userId, updatedBy: ctx.userId,
-    createdAt: ctx.now, updatedAt: ctx.now, fieldStamps: Object.fromEntries(Object.keys(part).map(k => [k, stamp])),
+  const fieldStamps = Object.fromEntries(Object.keys(part).map(k => [k, stamp]))
+  // Fitted again after a return: the same part comes back, with this fit's job and price.
+  const [old] = await ctx.tx.select({ id: p.id }).from(p).where(and(eq(p.id, partId), eq(p.shopId, ctx.shopId)))
+  if (old) {
+    await ctx.tx.update(p).set({ ...part, deletedAt: null, version: ctx.version, updatedBy: ctx.userId, updatedAt: ctx.now, fieldStamps }).where(eq(p.id, partId))
+    return
+  }
+  await ctx.tx.insert(p).values({
+    ...part, id: partId, shopId: ctx.shopId, version: ctx.version, createdBy: ctx.userId, updatedBy: ctx.userId,
+    createdAt: ctx.now, updatedAt: ctx.now, fieldStamps,
   })
+}
+
+/** A lot goes only with none of its tubes in a set fitted to a job (those are on a job's record). */
+async function checkLotDelete(ctx: ApplyContext, row: Row) {
+  const t = tables.stockTubes
+  const tubes = await ctx.tx.select({ setId: t.setId }).from(t).where(and(eq(t.lotId, row.id), eq(t.shopId, ctx.shopId), isNull(t.deletedAt)))
+  const setIds = [...new Set(tubes.flatMap(x => (x.setId ? [x.setId] : [])))]
+  if (!setIds.length) return
+  const s = tables.matchedSets
+  const [fitted] = await ctx.tx.select({ label: s.label }).from(s).where(and(inArray(s.id, setIds), eq(s.shopId, ctx.shopId), eq(s.status, 'fitted'), isNull(s.deletedAt)))
+  if (fitted) reject(`this lot's tubes are in set ${fitted.label}, which is fitted to a job: return the set to stock first, or keep the lot`)
 }
 
 export const STOCK_POLICIES = {
   tubeLots: {
     table: tables.tubeLots,
+    beforeDelete: checkLotDelete,
     async check(ctx, next, before) {
       if (!before && !(await tubeTypeName(ctx, String(next.tubeType)))) reject('that tube type is not in the Tubes library')
     },
   },
-  stockTubes: { table: tables.stockTubes, check: checkStockTube },
+  stockTubes: {
+    table: tables.stockTubes,
+    check: checkStockTube,
+    async beforeDelete(ctx, row) {
+      const set = await liveSet(ctx, row.setId)
+      if (set && set.tubeIds.includes(row.id)) reject(`tube ${String(row.label)} is in set ${set.label}: delete the set first`)
+    },
+  },
   matchedSets: {
     table: tables.matchedSets,
     // Before conflicts are weighed: a second fit is refused, whatever version the device saw.
+    // Returning it to stock (status 'in-stock') is the one move a fitted set may make.
     guard(_ctx, fields, row) {
-      if ((row as Row).status === 'fitted' && FIT_FIELDS.some(f => f in fields)) reject(`set ${String(row.label)} is already fitted to a job: it has left stock`)
+      if ((row as Row).status === 'fitted' && fields.status !== 'in-stock' && FIT_FIELDS.some(f => f in fields)) reject(`set ${String(row.label)} is already fitted to a job: it has left stock`)
+    },
+    beforeDelete(_ctx, row) {
+      if ((row as Row).status === 'fitted') reject(`set ${String(row.label)} is fitted to a job, so it cannot be deleted: return it to stock first`)
     },
     check: checkSet,
     after: fitPart,

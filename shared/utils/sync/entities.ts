@@ -125,7 +125,7 @@ export const ENTITY_FIELDS = {
     engineVersion: z.string().max(20),
     label: z.string().max(200).nullable(),
     jobId: id.nullable(),
-    // A rig is a player's amp record.
+    // A player's rig: their own, or one shared with this shop (checked by the server).
     rigId: id.nullable(),
   }),
   // Insert-only: who ticked which hazards, when, for which run.
@@ -181,6 +181,15 @@ export const ENTITY_FIELDS = {
     rigId: id,
     sharedShopId: id,
   }),
+  // Kept in the shop: retube thresholds the shop suggests for a rig shared with it. The player's
+  // own thresholds stay theirs until they adopt one.
+  rigSuggestions: z.object({
+    rigId: id,
+    retubeHours: z.number().positive({ message: 'must be more than 0 hours' }).max(100_000).nullable(),
+    retubeMonths: z.number().positive({ message: 'must be more than 0 months' }).max(600).nullable(),
+    note: text(200),
+    suggestedBy: text(120),
+  }),
 } as const
 
 export type EntityTable = keyof typeof ENTITY_FIELDS
@@ -203,6 +212,7 @@ export const ENTITY_PREFIX = {
   rigTubeSets: 'rigTubeSet',
   rigGigs: 'rigGig',
   rigShares: 'rigShare',
+  rigSuggestions: 'rigSuggestion',
 } as const satisfies Record<EntityTable, string>
 
 type Prefix<T extends EntityTable> = (typeof ENTITY_PREFIX)[T]
@@ -213,6 +223,7 @@ export const ENTITY_NOUNS: Record<EntityTable, string> = {
   tubeLots: 'Tube lot', stockTubes: 'Stock tube', matchedSets: 'Matched set', notes: 'Note',
   measurements: 'Bench result', procedureGates: 'Safety check', procedureRuns: 'Procedure run',
   rigs: 'Rig', rigTubeSets: 'Tube set', rigGigs: 'Gig', rigShares: 'Rig share',
+  rigSuggestions: 'Retube suggestion',
 }
 
 /** Fields a create may leave out, with their defaults. */
@@ -233,6 +244,7 @@ export const ENTITY_DEFAULTS: { [T in EntityTable]: Partial<EntityFields<T>> } =
   rigTubeSets: { fittedBy: '', tubes: [], readings: [], spare: false, retiredOn: '' },
   rigGigs: { note: '' },
   rigShares: {},
+  rigSuggestions: { retubeHours: null, retubeMonths: null, note: '', suggestedBy: '' },
 }
 
 /** Fields set when the record is made and never by `.setFields` (a setFields naming one drops it). */
@@ -248,7 +260,8 @@ export const ENTITY_FIXED: Partial<Record<EntityTable, readonly string[]>> = {
 
 /** Records that are made once and never edited: no `.setFields` mutation. */
 // A rig share is made and revoked (deleted), never edited.
-export const INSERT_ONLY = ['measurements', 'rigShares'] as const satisfies readonly EntityTable[]
+// A suggestion is replaced by a newer one, never edited.
+export const INSERT_ONLY = ['measurements', 'rigShares', 'rigSuggestions'] as const satisfies readonly EntityTable[]
 type InsertOnly = (typeof INSERT_ONLY)[number]
 
 function entityMutations<T extends EntityTable>(table: T) {
@@ -288,6 +301,7 @@ export const ENTITY_MUTATIONS = {
   ...entityMutations('rigTubeSets'),
   ...entityMutations('rigGigs'),
   ...entityMutations('rigShares'),
+  ...entityMutations('rigSuggestions'),
 }
 
 /** `job.setFields` -> { table: 'jobs', verb: 'setFields' }; undefined for non-entity mutations. */

@@ -5,9 +5,10 @@ import { id } from '../schemas/records'
 
 /**
  * Bumped when a mutation's arguments or a table's shape change incompatibly (2: notes and bench
- * results carry createdBy; 3: tube stock tables, so stored cookies start over and bring them).
+ * results carry createdBy; 3: tube stock tables, so stored cookies start over and bring them;
+ * 4: the shops' retube suggestions for shared rigs).
  */
-export const SYNC_SCHEMA_VERSION = 3
+export const SYNC_SCHEMA_VERSION = 4
 export const PULL_PAGE_SIZE = 500
 export const MAX_PUSH_MUTATIONS = 500
 
