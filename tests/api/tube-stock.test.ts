@@ -227,3 +227,117 @@ describe('fitting a set to a job', () => {
     expect((await tech.post(`/api/stock/sets/${pair.setId}/fit`, { jobId: 'not-an-id' })).status).toBe(400)
   })
 })
+
+/** A job of its own on the demo shop (checked in), so closing or paying it touches no other test. */
+async function freshJob(desk: Client) {
+  const customer = (await desk.post('/api/customers', { name: 'Stock Customer' })).body
+  const amp = (await desk.post('/api/amps', { customerId: customer.id, description: 'two-6L6 combo, fixed bias' })).body
+  const job = await desk.post('/api/jobs', { customerId: customer.id, ampId: amp.id, complaint: 'Needs new power tubes.' })
+  expect(job.status, JSON.stringify(job.body)).toBe(201)
+  return job.body.id as string
+}
+const livePart = async (setLabel: string) => sql<{ job_id: string }>('select job_id from job_parts where description like ? and deleted_at is null', [`%set ${setLabel}`])
+
+describe('a fitted set back to stock', () => {
+  it('takes the job\'s part off and puts the set back exactly once, however often the change is sent', async () => {
+    const techClient = await login(DEMO.tech)
+    const tech = pusher(techClient)
+    const pair = pairOf([44, 45], { costCents: 2000 })
+    expect(statuses(await tech.push(pair.changes))).toEqual(['applied', 'applied', 'applied', 'applied'])
+    const jobId = await freshJob(await login(DEMO.desk))
+    expect((await techClient.post(`/api/stock/sets/${pair.setId}/fit`, { jobId, priceCents: 7000 })).status).toBe(200)
+    expect(await livePart(pair.label)).toEqual([{ job_id: jobId }])
+
+    const back = { name: 'matchedSet.setFields', args: { id: pair.setId, fields: { status: 'in-stock', fittedJobId: null, fittedAt: '', priceCents: null } }, baseVersion: await versionOf('matched_sets', pair.setId) }
+    expect(statuses(await tech.push([back]))).toEqual(['applied'])
+    const sent = tech.sent.at(-1)!
+    // The answer was lost: the very same mutation again is a duplicate; a new tap changes nothing more.
+    expect(await tech.resend([sent])).toEqual([{ id: sent.id, status: 'duplicate', was: 'applied' }])
+    expect(statuses(await tech.push([{ ...back, uuid: undefined }]))).toEqual(['applied'])
+    const [set] = await sql('select status, fitted_job_id, fitted_at, price_cents from matched_sets where id = ?', [pair.setId])
+    expect(set).toEqual({ status: 'in-stock', fitted_job_id: null, fitted_at: '', price_cents: null })
+    expect(await livePart(pair.label)).toEqual([])
+    expect(await sql('select id from job_parts where description like ?', [`%set ${pair.label}`])).toHaveLength(1)
+    // By REST, asked twice: still in stock, nothing moves.
+    const rest = await techClient.post(`/api/stock/sets/${pair.setId}/return`, {})
+    expect(rest.status).toBe(200)
+    expect(rest.body.set).toMatchObject({ status: 'in-stock' })
+    expect(rest.body.part.deletedAt).not.toBeNull()
+
+    // The job's device sees the part gone; the set can be fitted again, and the same part comes back once.
+    const d = await device(techClient, DEMO.shopId)
+    await d.engine.pull()
+    expect((await d.db.jobParts.where('jobId').equals(jobId).toArray()).filter(p => !p.deleted)).toEqual([])
+    expect((await d.db.matchedSets.get(pair.setId))?.status).toBe('in-stock')
+    expect((await techClient.post(`/api/stock/sets/${pair.setId}/fit`, { jobId })).body.part).toMatchObject({ jobId, unitPriceCents: 4000, deletedAt: null })
+    expect(await livePart(pair.label)).toEqual([{ job_id: jobId }])
+  })
+
+  it('is refused once the job is closed or its invoice is paid, and for the desk', async () => {
+    const techClient = await login(DEMO.tech)
+    const desk = await login(DEMO.desk)
+    const owner = await login(DEMO.owner)
+    const pair = pairOf([46, 47])
+    const paidPair = pairOf([48, 49])
+    expect(statuses(await pusher(techClient).push([...pair.changes, ...paidPair.changes]))).toEqual(Array(8).fill('applied'))
+    const jobId = await freshJob(desk)
+    const paidJob = await freshJob(desk)
+    expect((await techClient.post(`/api/stock/sets/${pair.setId}/fit`, { jobId })).status).toBe(200)
+    expect((await techClient.post(`/api/stock/sets/${paidPair.setId}/fit`, { jobId: paidJob })).status).toBe(200)
+    expect((await desk.post(`/api/stock/sets/${pair.setId}/return`, {})).status).toBe(403)
+
+    // Paid: the invoice holds the set's part.
+    const inv = (await desk.post(`/api/jobs/${paidJob}/invoices`, { kind: 'invoice' })).body
+    expect((await desk.post(`/api/invoices/${inv.id}/counter-payment`, { method: 'cash', amountCents: inv.totalCents })).status).toBe(200)
+    const paid = await techClient.post(`/api/stock/sets/${paidPair.setId}/return`, {})
+    expect(paid.status).toBe(400)
+    expect(paid.body.message).toMatch(new RegExp(`invoice ${inv.number} is paid`))
+
+    // Closed: walk the job to closed, then try.
+    for (const status of ['on-bench', 'ready', 'handed-back', 'closed']) {
+      expect((await owner.patch(`/api/jobs/${jobId}`, { status })).status).toBe(200)
+    }
+    const closed = await techClient.post(`/api/stock/sets/${pair.setId}/return`, {})
+    expect(closed.status).toBe(400)
+    expect(closed.body.message).toMatch(/its job is closed/)
+    expect((await sql('select status from matched_sets where id in (?, ?)', [pair.setId, paidPair.setId])).map(r => r.status)).toEqual(['fitted', 'fitted'])
+    expect(await livePart(pair.label)).toHaveLength(1)
+  })
+})
+
+describe('deleting stock', () => {
+  it('a set in stock goes; a fitted set, a tube in a set and a lot with a fitted set are refused with the reason', async () => {
+    const techClient = await login(DEMO.tech)
+    const tech = pusher(techClient)
+    const desk = await login(DEMO.desk)
+    const kept = pairOf([50, 52])
+    const fitted = pairOf([53, 54])
+    expect(statuses(await tech.push([...kept.changes, ...fitted.changes]))).toEqual(Array(8).fill('applied'))
+    expect((await techClient.post(`/api/stock/sets/${fitted.setId}/fit`, { jobId: await freshJob(desk) })).status).toBe(200)
+
+    expect((await desk.del(`/api/stock/sets/${kept.setId}`)).status).toBe(403)
+    const tube = await techClient.del(`/api/stock/tubes/${kept.lot.tubeIds[0]}`)
+    expect(tube.status).toBe(400)
+    expect(tube.body.message).toMatch(/is in set .*: delete the set first/)
+    const set = await techClient.del(`/api/stock/sets/${fitted.setId}`)
+    expect(set.status).toBe(400)
+    expect(set.body.message).toMatch(new RegExp(`set ${fitted.label} is fitted to a job, so it cannot be deleted: return it to stock first`, 'i'))
+    const lot = await techClient.del(`/api/stock/lots/${fitted.lot.lotId}`)
+    expect(lot.status).toBe(400)
+    expect(lot.body.message).toMatch(/fitted to a job: return the set to stock first/)
+    // By sync too: refused, and nothing deleted.
+    const rs = await tech.push([{ name: 'matchedSet.delete', args: { id: fitted.setId } }])
+    expect(rs[0]).toMatchObject({ status: 'rejected', reason: expect.stringMatching(/cannot be deleted/) })
+    expect((await sql('select deleted_at from matched_sets where id = ?', [fitted.setId]))[0].deleted_at).toBeNull()
+
+    // As the stock screen does it: the set, its tubes, then the lot.
+    expect(statuses(await tech.push([
+      { name: 'matchedSet.delete', args: { id: kept.setId } },
+      ...kept.lot.tubeIds.map(id => ({ name: 'stockTube.delete', args: { id } })),
+      { name: 'tubeLot.delete', args: { id: kept.lot.lotId } },
+    ]))).toEqual(['applied', 'applied', 'applied', 'applied'])
+    const after = await desk.get('/api/stock')
+    expect(after.body.sets.map((s: { id: string }) => s.id)).not.toContain(kept.setId)
+    expect(after.body.lots.map((l: { id: string }) => l.id)).not.toContain(kept.lot.lotId)
+  })
+})
