@@ -70,7 +70,16 @@ describe('permissions table', () => {
     expect(can('player', 'customers', 'read')).toBe(false)
   })
 
-  it('allows nobody a verb the record does not list', () => {
+  it('lets only the bench suggest retube thresholds for a rig; the player reads them; nobody edits one', () => {
+    expect(ROLES.filter(r => can(r, 'rigSuggestions', 'create', { mine: true }))).toEqual(['owner', 'tech'])
+    expect(can('player', 'rigSuggestions', 'read')).toBe(true)
+    expect(can('desk', 'rigSuggestions', 'read')).toBe(false)
+    for (const r of ROLES) expect(can(r, 'rigSuggestions', 'update', { mine: true })).toBe(false)
+    // The rig itself stays the player's: the shop never changes its thresholds.
+    expect(ROLES.filter(r => can(r, 'rigs', 'update', { mine: true }))).toEqual(['player'])
+  })
+
+    it('allows nobody a verb the record does not list', () => {
     for (const r of ROLES) {
       expect(can(r, 'mail', 'remove', { mine: true })).toBe(false)
       expect(can(r, 'shopSettings', 'create', { mine: true })).toBe(false)
