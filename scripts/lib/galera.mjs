@@ -79,6 +79,8 @@ export function galeraNodes({ dir, count = 3, ports, clusterName = 'tubewright-s
       // on one node sees a push acknowledged by another.
       '--wsrep-sync-wait=1',
       '--wsrep-slave-threads=2',
+      // A single autocommit statement that loses certification is run again by the server itself.
+      '--wsrep-retry-autocommit=3',
     ]
   }
   return nodes
