@@ -1,7 +1,7 @@
 // npm run soak:cluster: the sync soak across two app nodes on a three-node MariaDB Galera cluster,
 // photos in an S3-compatible fake, one database node stopped mid-run and brought back.
 // Everything listens on 127.0.0.1 and lives in one temp dir, removed at the end.
-import { chmodSync, mkdtempSync, rmSync } from 'node:fs'
+import { chmodSync, mkdtempSync, readFileSync, rmSync } from 'node:fs'
 import { createHash, randomBytes } from 'node:crypto'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
@@ -160,7 +160,7 @@ try {
 
   // Mid-run: stop database node 2 (node B's) once a quarter of the changes are in, start it again
   // (it catches up by IST) after a third more or 30 s.
-  const outage = { down: 0, rejoinMs: 0 }
+  const outage = { down: 0, rejoinMs: 0, by: '' }
   const logged = async () => Number((await sqlOn(dbUrl(0), 'select count(*) n from sync_mutations'))[0]!.n)
   const chaos = (async () => {
     for (let i = 0; i < 1200 && (await logged()) < MUTATIONS * 0.25; i++) await sleep(250)
@@ -169,10 +169,14 @@ try {
     log(`stopped ${nodes[1]!.name} with ${await logged()} changes logged`)
     for (let i = 0; i < 120 && ((await logged()) < MUTATIONS * 0.55 || Date.now() - downAt < 5000); i++) await sleep(250)
     const back = Date.now()
+    const errLog = join(nodes[1]!.home, 'mariadbd.err')
+    const seen = readFileSync(errLog, 'utf8').length
     await startGaleraNode(nodes[1])
+    const since = readFileSync(errLog, 'utf8').slice(seen)
+    outage.by = /IST received/.test(since) ? 'IST' : /SST (received|succeeded)/.test(since) ? 'SST' : 'state transfer'
     outage.rejoinMs = Date.now() - back
     outage.down = Date.now() - downAt
-    log(`${nodes[1]!.name} back and Synced after ${(outage.down / 1000).toFixed(1)} s down (rejoin ${(outage.rejoinMs / 1000).toFixed(1)} s)`)
+    log(`${nodes[1]!.name} back and Synced after ${(outage.down / 1000).toFixed(1)} s down (rejoin by ${outage.by} ${(outage.rejoinMs / 1000).toFixed(1)} s)`)
   })()
   let quietAt = 0
   const soakStart = Date.now()
@@ -220,7 +224,7 @@ try {
     ['certification conflicts retried', `${retried} by the app (gave up: ${gaveUp}); Galera counted ${certFailures} cert failures, ${bfAborts} BF aborts`],
     ['change log versions', `${n} unique, ${v!.lo}..${v!.hi}, gapless: ${versionsOk ? 'yes' : 'NO'}`],
     ['database nodes agree', nodesAgree ? `yes (${digests[0]![0]!.n} notes on each)` : 'NO'],
-    ['database node outage', `${nodes[1]!.name} down ${(outage.down / 1000).toFixed(1)} s, rejoined by IST in ${(outage.rejoinMs / 1000).toFixed(1)} s`],
+    ['database node outage', `${nodes[1]!.name} down ${(outage.down / 1000).toFixed(1)} s, rejoined by ${outage.by} in ${(outage.rejoinMs / 1000).toFixed(1)} s`],
     ['photos across app nodes', `${photos} / 10`],
     ['lossy phase', `${((quietAt - soakStart) / 1000).toFixed(1)} s`],
     ['time to converge', `${(convergeMs / 1000).toFixed(1)} s (${r.rounds} quiet round${r.rounds === 1 ? '' : 's'})`],
