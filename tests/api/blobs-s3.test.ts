@@ -109,5 +109,5 @@ describe('two app servers sharing one S3 bucket', () => {
       a.kill()
       b.kill()
     }
-  }, 60_000)
+  }, 120_000)
 })
