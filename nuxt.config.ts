@@ -40,6 +40,16 @@ export default defineNuxtConfig({
     publicOrigin: 'http://localhost:3000',
     // Photos and other content-addressed files (NUXT_BLOB_DIR).
     blobDir: '.data/blobs',
+    // Where photos live (NUXT_BLOB_DRIVER): 'local' (the folder above) or 's3', an S3-compatible
+    // bucket (NUXT_S3_BUCKET, _REGION, _ENDPOINT, _ACCESS_KEY_ID, _SECRET_ACCESS_KEY, _FORCE_PATH_STYLE, _PREFIX).
+    blobDriver: 'local',
+    s3Bucket: '',
+    s3Region: 'us-east-1',
+    s3Endpoint: '',
+    s3AccessKeyId: '',
+    s3SecretAccessKey: '',
+    s3ForcePathStyle: false,
+    s3Prefix: '',
     // The payment provider (NUXT_PAYMENT_*): a local fake in development and tests.
     paymentApiHost: '127.0.0.1',
     paymentApiPort: 0,

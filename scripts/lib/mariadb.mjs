@@ -55,6 +55,15 @@ async function canConnect(opts) {
   }
 }
 
+/** Make the system tables in an empty data dir; root on the socket has no password. */
+export function mariadbInstallDb(dataDir, user = process.getuid?.() === 0 ? 'root' : '') {
+  mkdirSync(dataDir, { recursive: true })
+  user = user ? [`--user=${user}`] : []
+  execFileSync(bin('mariadb-install-db'), [
+    `--datadir=${dataDir}`, '--auth-root-authentication-method=normal', '--skip-test-db', ...user,
+  ], { stdio: ['ignore', 'ignore', 'inherit'] })
+}
+
 /**
  * Make sure a server runs on `port` with data in `dir`. Returns { pid, socket, started }.
  * Root on the socket has no password (a private datadir only reachable by this user).
@@ -65,12 +74,8 @@ export async function startMariadb({ dir, port, log = console.log }) {
   const dataDir = join(dir, 'data')
   const socket = join(dir, 'mariadbd.sock')
   if (!existsSync(join(dataDir, 'mysql'))) {
-    mkdirSync(dataDir, { recursive: true })
     log(`Initialising a MariaDB data directory in ${dataDir}`)
-    const user = process.getuid?.() === 0 ? ['--user=root'] : []
-    execFileSync(bin('mariadb-install-db'), [
-      `--datadir=${dataDir}`, '--auth-root-authentication-method=normal', '--skip-test-db', ...user,
-    ], { stdio: ['ignore', 'ignore', 'inherit'] })
+    mariadbInstallDb(dataDir)
   }
   let pid = readPid(dir)
   let started = false

@@ -1,8 +1,8 @@
-import { createHash, randomUUID } from 'node:crypto'
-import { existsSync } from 'node:fs'
-import { mkdir, rename, writeFile } from 'node:fs/promises'
-import { dirname, join, resolve } from 'node:path'
+import { createHash } from 'node:crypto'
 import type { BlobType } from '#shared/utils/schemas/blobs'
+import { createLocalBlobStore } from './blob-drivers/local'
+import { createS3BlobStore } from './blob-drivers/s3'
+import type { BlobStore } from './blob-drivers/types'
 
 // Leading bytes of each accepted format.
 // Source: PNG (ISO/IEC 15948, section 5.2 "PNG signature"); JPEG (ITU-T T.81, B.1.1.3: SOI marker FFD8,
@@ -21,17 +21,26 @@ export function sniffImageType(buf: Buffer): BlobType | null {
 
 export const sha256OfBody = (buf: Buffer) => createHash('sha256').update(buf).digest('hex')
 
-export function blobPath(sha256: string) {
-  return join(resolve(useRuntimeConfig().blobDir || '.data/blobs'), sha256.slice(0, 2), sha256)
-}
+let store: { key: string, value: BlobStore } | null = null
 
-/** Write once: the name is the content's hash, so an existing file already holds these bytes. */
-export async function storeBlobFile(sha256: string, body: Buffer) {
-  const path = blobPath(sha256)
-  if (existsSync(path)) return path
-  await mkdir(dirname(path), { recursive: true })
-  const tmp = `${path}.${randomUUID()}.tmp`
-  await writeFile(tmp, body)
-  await rename(tmp, path)
-  return path
+/**
+ * The photo store this server is configured for: the local folder (NUXT_BLOB_DIR) by default,
+ * an S3-compatible bucket with NUXT_BLOB_DRIVER=s3 (and NUXT_S3_*), so several app nodes share photos.
+ */
+export function useBlobStore(): BlobStore {
+  const c = useRuntimeConfig()
+  const key = JSON.stringify([c.blobDriver, c.blobDir, c.s3Bucket, c.s3Endpoint, c.s3Prefix])
+  if (store?.key === key) return store.value
+  const driver = String(c.blobDriver || 'local')
+  let value: BlobStore
+  if (driver === 'local') value = createLocalBlobStore(c.blobDir || '.data/blobs')
+  else if (driver === 's3') {
+    value = createS3BlobStore({
+      bucket: c.s3Bucket, region: c.s3Region, endpoint: c.s3Endpoint, prefix: c.s3Prefix,
+      accessKeyId: c.s3AccessKeyId, secretAccessKey: c.s3SecretAccessKey, forcePathStyle: !!c.s3ForcePathStyle,
+    })
+  }
+  else throw new Error(`Unknown photo store "${driver}" (NUXT_BLOB_DRIVER is local or s3).`)
+  store = { key, value }
+  return value
 }

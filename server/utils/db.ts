@@ -1,13 +1,18 @@
 import { drizzle } from 'drizzle-orm/mysql2'
 import { createPool, type Pool } from 'mysql2/promise'
 import * as schema from '../db/schema/index'
+import { withRetry } from './transactions'
 
 let pool: Pool | undefined
 let instance: ReturnType<typeof makeDb> | undefined
 
 function makeDb(p: Pool) {
   // planetscale mode: MariaDB has no LATERAL joins for relational queries.
-  return drizzle(p, { schema, mode: 'planetscale' })
+  const db = drizzle(p, { schema, mode: 'planetscale' })
+  // Every transaction retries deadlocks and (on a Galera cluster) certification conflicts.
+  const begin = db.transaction.bind(db)
+  db.transaction = ((fn, config) => withRetry(() => begin(fn, config))) as typeof db.transaction
+  return db
 }
 
 export function useDb() {

@@ -1,12 +1,17 @@
-// How every writer runs: retried on deadlock, the shop's version row locked and bumped once,
+// How every writer runs: retried on deadlock or certification conflict, the shop's version row locked and bumped once,
 // and work that must wait for the commit (e-mail) run after it.
 // Imports spelled out (not Nitro's auto-imports) so the demo seed, run by tsx, shares the version lock.
+import { AsyncLocalStorage } from 'node:async_hooks'
 import { eq } from 'drizzle-orm'
 import { createError } from 'h3'
 import { tables, useDb, type Tx } from './db'
 
+// 1213 (ER_LOCK_DEADLOCK) is also what a Galera node answers when certification aborts a transaction
+// that conflicts with one committed on another node: retrying is the documented remedy.
 const RETRYABLE = new Set(['ER_LOCK_DEADLOCK', 'ER_LOCK_WAIT_TIMEOUT'])
-const UNAVAILABLE = new Set(['ECONNREFUSED', 'ECONNRESET', 'PROTOCOL_CONNECTION_LOST', 'ETIMEDOUT', 'ER_CON_COUNT_ERROR', 'EPIPE', 'ENOTFOUND', 'ER_SERVER_SHUTDOWN'])
+// ER_UNKNOWN_COM_ERROR (1047) is a Galera node that is not in the primary component or still joining.
+const UNAVAILABLE = new Set(['ECONNREFUSED', 'ECONNRESET', 'PROTOCOL_CONNECTION_LOST', 'ETIMEDOUT', 'ER_CON_COUNT_ERROR', 'EPIPE', 'ENOTFOUND', 'ER_SERVER_SHUTDOWN', 'ER_UNKNOWN_COM_ERROR'])
+export const MAX_RETRIES = 6
 
 function code(error: unknown): string | undefined {
   let e = error as { code?: string, cause?: unknown } | undefined
@@ -20,20 +25,47 @@ function code(error: unknown): string | undefined {
 export const isRetryable = (error: unknown) => RETRYABLE.has(code(error) ?? '')
 export const isUnavailable = (error: unknown) => UNAVAILABLE.has(code(error) ?? '') || isRetryable(error)
 
-/** Run a transaction, retrying deadlocks; a database that is down answers 503 and changes nothing. */
+/** Retries and give-ups since this process started, for operators and the cluster soak. */
+export const retryCounts = { retried: 0, gaveUp: 0 }
+
+// Set while a withRetry loop runs, so a transaction inside one is not retried twice over.
+const retrying = new AsyncLocalStorage<{ open: boolean }>()
+
+/**
+ * Run a transaction, retrying deadlocks and certification conflicts a bounded number of times; a
+ * database that is down answers 503 and changes nothing. Every `useDb().transaction` runs through
+ * this (db.ts), so a writer needs no wrapper of its own; an explicit one also retries the reads before.
+ */
 export async function withRetry<T>(fn: () => Promise<T>): Promise<T> {
-  for (let attempt = 0; ; attempt++) {
-    try {
-      return await fn()
-    }
-    catch (error) {
-      if (isRetryable(error) && attempt < 4) {
-        await new Promise(r => setTimeout(r, 5 + Math.random() * 20 * (attempt + 1)))
-        continue
+  if (retrying.getStore()?.open) return fn()
+  const scope = { open: true }
+  try {
+    return await retrying.run(scope, async () => {
+      for (let attempt = 0; ; attempt++) {
+        try {
+          return await fn()
+        }
+        catch (error) {
+          if (isRetryable(error) && attempt < MAX_RETRIES) {
+            retryCounts.retried++
+            // One line per retry: the cluster soak counts them from the server log.
+            console.warn(`[tx-retry] ${code(error)} attempt ${attempt + 1}`)
+            await new Promise(r => setTimeout(r, 5 + Math.random() * 20 * (attempt + 1)))
+            continue
+          }
+          if (isRetryable(error)) {
+            retryCounts.gaveUp++
+            console.warn(`[tx-retry] ${code(error)} gave up after ${attempt + 1} attempts`)
+          }
+          if (isUnavailable(error)) throw createError({ statusCode: 503, message: 'The shop server cannot reach its database. Your changes stay on the device.' })
+          throw error
+        }
       }
-      if (isUnavailable(error)) throw createError({ statusCode: 503, message: 'The shop server cannot reach its database. Your changes stay on the device.' })
-      throw error
-    }
+    })
+  }
+  finally {
+    // Work started inside (after-commit tasks) may outlive the loop and retries on its own.
+    scope.open = false
   }
 }
 

@@ -1,4 +1,3 @@
-import { createReadStream, existsSync } from 'node:fs'
 import { and, eq, isNull } from 'drizzle-orm'
 import { blobParamsSchema } from '#shared/utils/schemas/blobs'
 
@@ -11,8 +10,8 @@ export default defineEventHandler(async (event) => {
     .innerJoin(tables.shops, eq(tables.shops.id, tables.blobs.shopId))
     .where(and(eq(tables.blobs.sha256, sha256), isNull(tables.shops.deletedAt)))
     .limit(1)
-  const path = blobPath(sha256)
-  if (!row || !existsSync(path)) throw createError({ statusCode: 404, message: 'Photo not found.' })
+  const stream = row ? await useBlobStore().get(sha256) : null
+  if (!row || !stream) throw createError({ statusCode: 404, message: 'Photo not found.' })
   setResponseHeaders(event, {
     'content-type': row.type,
     'content-length': row.size,
@@ -21,5 +20,5 @@ export default defineEventHandler(async (event) => {
     'etag': `"${sha256}"`,
     'x-content-type-options': 'nosniff',
   })
-  return sendStream(event, createReadStream(path))
+  return sendStream(event, stream)
 })

@@ -23,7 +23,7 @@ export default defineEventHandler(async (event) => {
   const [existing] = await db.select({ size: tables.blobs.size }).from(tables.blobs)
     .where(and(eq(tables.blobs.sha256, sha256), eq(tables.blobs.shopId, access.shopId)))
   if (!existing) {
-    await storeBlobFile(sha256, body)
+    await useBlobStore().put(sha256, body, type)
     const [result] = await db.insert(tables.blobs).ignore()
       .values({ sha256, shopId: access.shopId, type, size: body.length, createdBy: access.userId })
     // A concurrent upload of the same photo may have won the insert: that is still one copy.

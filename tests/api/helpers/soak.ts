@@ -4,9 +4,20 @@ import { randomUUID } from 'node:crypto'
 import { computeTool, ENGINE_VERSION } from '../../../shared/utils/bench'
 import { device, eventually, prng, shopWithMembers, type Device, NO_FAULTS } from './devices'
 import { sql } from './db'
+import type { Client } from './client'
 
-export interface SoakOptions { clients: number, mutations: number, seed: number, restartRate?: number }
+export interface SoakOptions {
+  clients: number
+  mutations: number
+  seed: number
+  restartRate?: number
+  /** The HTTP client device `i` syncs through (the cluster soak pushes to one node and pulls from another). */
+  via?: (http: Client, i: number) => Client
+  /** Awaited after the lossy phase, before the quiet rounds (the cluster soak waits for its node to rejoin). */
+  beforeQuiet?: () => Promise<void>
+}
 export interface SoakReport {
+  shopId: string
   mutations: number
   loggedUuids: number
   rounds: number
@@ -47,7 +58,7 @@ export async function runSoak(o: SoakOptions): Promise<SoakReport> {
   const rand = prng(o.seed)
   const { shopId, members } = await shopWithMembers(o.clients - 1)
   const faults = { dropRequest: 0.2, dropResponse: 0.1, duplicate: 0.1 }
-  const devices = await Promise.all(members.map((http, i) => device(http, shopId, { faults: { ...faults }, rand: prng(o.seed * 31 + i) })))
+  const devices = await Promise.all(members.map((http, i) => device(o.via ? o.via(http, i) : http, shopId, { faults: { ...faults }, rand: prng(o.seed * 31 + i) })))
   let restarts = 0
   const perClient = Math.ceil(o.mutations / o.clients)
   const counts = devices.map((_, i) => Math.min(perClient, o.mutations - i * perClient))
@@ -69,6 +80,7 @@ export async function runSoak(o: SoakOptions): Promise<SoakReport> {
     }
   }))
 
+  await o.beforeQuiet?.()
   // Quiet network: at most three rounds of everyone syncing.
   for (const d of devices) d.transport.faults = { ...NO_FAULTS }
   let rounds = 0
@@ -98,6 +110,7 @@ export async function runSoak(o: SoakOptions): Promise<SoakReport> {
   for (const d of devices) outboxLeft += await d.engine.pendingCount()
   for (const d of devices) d.db.close()
   return {
+    shopId,
     mutations: o.mutations,
     loggedUuids: Number(logged!.u),
     rounds,
