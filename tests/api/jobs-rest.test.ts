@@ -246,7 +246,7 @@ describe('jobs over REST', () => {
     expect((await o.get(`/api/jobs?q=TST-${amp.serial.slice(4)}`)).body.total).toBe(0)
     // Pointing a new job of its own at this shop's customer is refused too.
     const r = await o.post('/api/jobs', { customerId: customer.id, ampId: amp.id, complaint: 'not ours' })
-    expect(r.status).toBe(400)
+    expect(r.status).toBe(404)
     expect(r.body.message).toMatch(/not found in this shop/)
     expect((await owner.get(`/api/jobs/${job.id}`)).body.complaint).toBe(job.complaint)
   })
