@@ -73,12 +73,12 @@ describe('jobs over REST', () => {
     expect(resolved.body.results[0].status).toBe('applied')
   })
 
-  it('answers 400 with a message for bad input, never 500', async () => {
+  it('answers 400 with a message for bad input (404 for an id that is no record of the shop), never 500', async () => {
     const { job } = await checkIn()
-    const cases: [Client, string, string, unknown?][] = [
+    const cases: [Client, string, string, unknown?, number?][] = [
       [desk, 'POST', '/api/jobs', {}],
       [desk, 'POST', '/api/jobs', { customerId: 'nope', ampId: randomUUID(), complaint: 'x' }],
-      [desk, 'POST', '/api/jobs', { customerId: randomUUID(), ampId: randomUUID(), complaint: 'points nowhere' }],
+      [desk, 'POST', '/api/jobs', { customerId: randomUUID(), ampId: randomUUID(), complaint: 'points nowhere' }, 404],
       [desk, 'POST', '/api/jobs', { ...job, id: undefined, status: 'ready' }],
       [tech, 'PATCH', `/api/jobs/${job.id}`, {}],
       [tech, 'PATCH', `/api/jobs/${job.id}`, { status: 'bogus' }],
@@ -89,13 +89,13 @@ describe('jobs over REST', () => {
       [tech, 'GET', '/api/jobs/not-an-id'],
       [desk, 'POST', '/api/customers', { name: '' }],
       [desk, 'POST', '/api/customers', { name: 'X', email: 'not-mail' }],
-      [tech, 'POST', '/api/amps', { customerId: randomUUID(), description: 'orphan' }],
+      [tech, 'POST', '/api/amps', { customerId: randomUUID(), description: 'orphan' }, 404],
       [owner, 'PATCH', '/api/shop/settings', { currency: 'dollars' }],
       [owner, 'PATCH', '/api/shop/settings', { taxRateBasisPoints: 8.25 }],
     ]
-    for (const [c, method, path, body] of cases) {
+    for (const [c, method, path, body, status] of cases) {
       const r = await c.raw(method, path, body)
-      expect(r.status, `${method} ${path} ${JSON.stringify(body)}`).toBe(400)
+      expect(r.status, `${method} ${path} ${JSON.stringify(body)}`).toBe(status ?? 400)
       expect(typeof r.body.message).toBe('string')
       expect(JSON.stringify(r.body)).not.toMatch(/stack|sql|at Object/i)
     }
@@ -246,7 +246,7 @@ describe('jobs over REST', () => {
     expect((await o.get(`/api/jobs?q=TST-${amp.serial.slice(4)}`)).body.total).toBe(0)
     // Pointing a new job of its own at this shop's customer is refused too.
     const r = await o.post('/api/jobs', { customerId: customer.id, ampId: amp.id, complaint: 'not ours' })
-    expect(r.status).toBe(400)
+    expect(r.status).toBe(404)
     expect(r.body.message).toMatch(/not found in this shop/)
     expect((await owner.get(`/api/jobs/${job.id}`)).body.complaint).toBe(job.complaint)
   })

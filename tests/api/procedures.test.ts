@@ -184,7 +184,7 @@ describe('finishing a run', () => {
     const runId = randomUUID()
     const gate = gateFor('check-cathode-bias', runId, { jobId: randomUUID() })
     const r = await tech.post('/api/procedure-gates', gate)
-    expect(r.status).toBe(400)
+    expect(r.status).toBe(404)
     expect(r.body.message).toMatch(/job not found in this shop/i)
     const sam = await login(DEMO.sam)
     expect((await sam.post('/api/procedure-gates', gateFor('backstage-check', randomUUID(), { jobId: randomUUID() }))).status).toBe(403)

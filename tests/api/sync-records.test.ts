@@ -170,7 +170,7 @@ describe('notes and bench results as ordinary synced records', () => {
     expect((await other.c.post('/api/procedure-runs', { id: runId, procedureId, gateId: gate.id, jobId: null })).status).toBe(201)
     const at = new Date().toISOString()
     const foreign = await other.c.patch(`/api/procedure-runs/${runId}`, { readings: { idle: { measurementId: theirs, at } } })
-    expect(foreign.status).toBe(400)
+    expect(foreign.status).toBe(404)
     expect(foreign.body.message).toBe('Measurement not found in this shop.')
     const own = randomUUID()
     expect(statuses(await push(other.c, other.shopId, [{ name: 'measurement.create', args: { id: own, tool: 'idle-dissipation', inputs, outputs: outputs(), engineVersion: ENGINE_VERSION } }]))).toEqual(['applied'])

@@ -94,7 +94,7 @@ describe('tube stock: who may see and change it', () => {
     expect(positiveGrid.status).toBe(400)
     expect(positiveGrid.body.message).toMatch(/zero or negative/)
     const noLot = await tech.post('/api/stock/tubes', { lotId: randomUUID(), label: 'X-03', plateVolts: 400, gridVolts: -40, amps: 0.05, testedOn: today })
-    expect(noLot.status).toBe(400)
+    expect(noLot.status).toBe(404)
     expect(noLot.body.message).toMatch(/Lot not found in this shop/)
     expect((await tech.del(`/api/stock/tubes/${tube.body.id}`)).status).toBe(200)
   })

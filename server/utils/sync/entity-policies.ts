@@ -35,14 +35,15 @@ export interface EntityPolicy {
 /**
  * Refuse a reference to a record that is not a live record of this shop (checked inside the
  * mutation's transaction). `mayBeNew`: the record may not exist yet (a gate names the run it opens),
- * but an id already used by another shop or by a deleted record is still refused.
+ * but an id already used by another shop or by a deleted record is still refused. Over REST the
+ * refusal is a 404, as for any record outside the caller's shop.
  */
 export async function mustExist(ctx: ApplyContext, table: EntityTable, id: unknown, what: string, opts: { mayBeNew?: boolean } = {}) {
   if (id === null || id === undefined) return
-  if (typeof id !== 'string') return reject(`${what} not found in this shop`)
+  if (typeof id !== 'string') return reject(`${what} not found in this shop`, 'missing')
   const t = ENTITY_POLICIES[table].table
   const [row] = await ctx.tx.select({ shopId: t.shopId, deletedAt: t.deletedAt }).from(t).where(eq(t.id, id))
-  if (row ? row.shopId !== ctx.shopId || row.deletedAt : !opts.mayBeNew) reject(`${what} not found in this shop`)
+  if (row ? row.shopId !== ctx.shopId || row.deletedAt : !opts.mayBeNew) reject(`${what} not found in this shop`, 'missing')
 }
 
 async function mustBeMember(ctx: ApplyContext, userId: unknown, what: string, roles?: readonly Role[]) {

@@ -59,7 +59,7 @@ async function checkNewSet(ctx: ApplyContext, set: SetFields) {
   const lots = lotIds.length ? await ctx.tx.select({ id: tables.tubeLots.id, tubeType: tables.tubeLots.tubeType }).from(tables.tubeLots).where(inArray(tables.tubeLots.id, lotIds)) : []
   for (const id of set.tubeIds) {
     const tube = tubes.find(r => r.id === id)
-    if (!tube || tube.shopId !== ctx.shopId || tube.deletedAt) return reject('stock tube not found in this shop')
+    if (!tube || tube.shopId !== ctx.shopId || tube.deletedAt) return reject('stock tube not found in this shop', 'missing')
     if (tube.setId !== set.id) reject(`tube ${tube.label} is not marked for this set (it is ${tube.setId ? 'in another set' : 'in no set'})`)
     const type = lots.find(l => l.id === tube.lotId)?.tubeType
     if (type !== set.tubeType) reject(`tube ${tube.label} is a ${type ?? 'tube of an unknown type'}, not a ${set.tubeType}`)
