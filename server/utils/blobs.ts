@@ -21,7 +21,11 @@ export function sniffImageType(buf: Buffer): BlobType | null {
 
 export const sha256OfBody = (buf: Buffer) => createHash('sha256').update(buf).digest('hex')
 
+const SHA256_HEX = /^[0-9a-f]{64}$/
+
+/** Where a blob lives; only a sha256 name is ever turned into a path, so nothing lands outside the blob folder. */
 export function blobPath(sha256: string) {
+  if (!SHA256_HEX.test(sha256)) throw createError({ statusCode: 400, message: 'sha256 must be 64 lower-case hex digits' })
   return join(resolve(useRuntimeConfig().blobDir || '.data/blobs'), sha256.slice(0, 2), sha256)
 }
 
