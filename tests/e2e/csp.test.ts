@@ -60,6 +60,14 @@ describe('the app under its content-security-policy', () => {
     expect(await page.evaluate(() => document.fonts.check('16px Inter'))).toBe(true)
     for (const [path, list] of Object.entries(seen)) expect(list, path).toEqual([])
     expect(problems).toEqual([])
+    // The watch works: a script written into the page is refused and reported.
+    await page.evaluate(() => {
+      const s = document.createElement('script')
+      s.textContent = 'document.title = "inline ran"'
+      document.body.append(s)
+    })
+    await expect.poll(() => violations(page)).toEqual([expect.stringMatching(/^script-src/)])
+    expect(await page.title()).not.toBe('inline ran')
     await context.close()
   })
 
