@@ -1,7 +1,7 @@
 import { createHash, randomBytes } from 'node:crypto'
 import { existsSync, readdirSync } from 'node:fs'
 import { request } from 'node:http'
-import { dirname, join } from 'node:path'
+import { dirname } from 'node:path'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { BASE, DEMO, login, type Client } from './helpers/client'
 import { sql } from './helpers/db'
