@@ -21,6 +21,10 @@ async function forgetSession(event: H3Event) {
   event.context.sessions![sessionName(event)] = { id: randomUUID(), createdAt: Date.now(), data: Object.create(null) }
 }
 
+export async function deleteSessionRow(sid: string | undefined) {
+  if (sid) await useDb().delete(tables.sessions).where(eq(tables.sessions.id, hashToken(sid)))
+}
+
 /** Is this cookie's session still on the server? One primary-key lookup. */
 export async function sessionIsLive(userId: string, sid: string | undefined): Promise<boolean> {
   if (!sid) return false
@@ -41,12 +45,11 @@ export async function dropEndedSession(event: H3Event) {
 export async function startSession(event: H3Event, userId: string, activeShopId: string | null) {
   const db = useDb()
   const now = Date.now()
-  const previous = (await getUserSession(event)).secure?.sid
   const sid = newToken()
   await db.delete(tables.sessions).where(and(eq(tables.sessions.userId, userId), lt(tables.sessions.expiresAt, new Date(now))))
-  if (previous) await db.delete(tables.sessions).where(eq(tables.sessions.id, hashToken(previous)))
   const maxAge = useRuntimeConfig(event).session.maxAge ?? 60 * 60 * 24 * 30
   await db.insert(tables.sessions).values({ id: hashToken(sid), userId, expiresAt: new Date(now + maxAge * 1000) })
+  // Ends the session this cookie had before (the clear hook deletes its row).
   await forgetSession(event)
   await setUserSession(event, { user: { id: userId }, activeShopId, secure: { sid } }, sessionConfig(event))
 }
@@ -56,10 +59,8 @@ export async function setSessionShop(event: H3Event, shopId: string) {
   await setUserSession(event, { activeShopId: shopId }, sessionConfig(event))
 }
 
-/** Sign out here: the server forgets the session, so a copy of the cookie stops working too. */
+/** Sign out here: the server forgets the session (server/plugins/sessions.ts), so a copy of the cookie stops working too. */
 export async function endSession(event: H3Event) {
-  const sid = (await getUserSession(event)).secure?.sid
-  if (sid) await useDb().delete(tables.sessions).where(eq(tables.sessions.id, hashToken(sid)))
   await forgetSession(event)
 }
 
