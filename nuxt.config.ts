@@ -58,10 +58,16 @@ export default defineNuxtConfig({
     paymentWebhookSecret: '',
     // Lets POST /api/rigs/reminders/run trigger the reminder task (NUXT_RIG_REMINDER_SECRET; empty: off).
     rigReminderSecret: '',
+    // The session cookie's Secure flag (NUXT_COOKIE_SECURE): true / false, or empty to follow the
+    // public origin's scheme (server/utils/cookie-flags.ts). Sessions also live in the `sessions` table.
+    cookieSecure: '',
     session: {
       name: 'tubewright-session',
       maxAge: 60 * 60 * 24 * 30,
-      cookie: { httpOnly: true, sameSite: 'lax', secure: process.env.NODE_ENV === 'production' && process.env.TW_INSECURE_COOKIE !== '1' },
+      // Cookie only: no session read from a request header.
+      sessionHeader: false,
+      // Lax, not Strict: a pay or invitation link opened from an e-mail arrives as a top-level navigation.
+      cookie: { httpOnly: true, sameSite: 'lax' },
     },
   },
   routeRules: {

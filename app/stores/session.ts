@@ -63,6 +63,11 @@ export const useSessionStore = defineStore('session', () => {
     set(null)
   }
 
+  /** Other devices are signed out by the server; this one stays signed in. */
+  async function changePassword(currentPassword: string, newPassword: string) {
+    return await $fetch<{ ok: true, endedSessions: number }>('/api/auth/password', { method: 'POST', body: { currentPassword, newPassword } })
+  }
+
   async function switchShop(shopId: string) {
     set(await $fetch<MePayload>('/api/auth/active-shop', { method: 'POST', body: { shopId } }))
   }
@@ -79,5 +84,5 @@ export const useSessionStore = defineStore('session', () => {
   /** What the permissions table (the server's own) lets this person do in the active shop. */
   const may = (record: RecordKind, verb: Verb, opts: { mine?: boolean } = {}) => !!role.value && canDo(role.value, record, verb, opts)
 
-  return { me, checked, reachable, user, activeShop, role, signedIn, refresh, signIn, register, signOut, switchShop, createShop, acceptInvitation, can, may }
+  return { me, checked, reachable, user, activeShop, role, signedIn, refresh, signIn, register, signOut, changePassword, switchShop, createShop, acceptInvitation, can, may }
 })

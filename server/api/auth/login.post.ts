@@ -47,7 +47,7 @@ export default defineEventHandler(async (event) => {
     await db.update(tables.users).set({ failedLogins: 0, firstFailedAt: null, lockedUntil: null }).where(eq(tables.users.id, user.id))
   }
   const me = await loadMe(user.id)
-  await setUserSession(event, { user: { id: user.id }, activeShopId: me?.activeShop?.id ?? null })
+  await startSession(event, user.id, me?.activeShop?.id ?? null)
   await audit(db, { userId: user.id, action: 'auth.login' })
   return me
 })

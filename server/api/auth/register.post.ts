@@ -16,7 +16,7 @@ export default defineEventHandler(async (event) => {
     await audit(tx, { userId: id, action: 'auth.register' })
     if (body.invitationToken) joinedShopId = await acceptInvitation(tx, body.invitationToken, { id, email: body.email })
   })
-  await setUserSession(event, { user: { id }, activeShopId: joinedShopId })
+  await startSession(event, id, joinedShopId)
   setResponseStatus(event, 201)
   return await loadMe(id, joinedShopId)
 })

@@ -75,3 +75,14 @@ export const membershipsRelations = relations(memberships, ({ one }) => ({
 export const invitationsRelations = relations(invitations, ({ one }) => ({
   shop: one(shops, { fields: [invitations.shopId], references: [shops.id] }),
 }))
+
+/**
+ * A signed-in device. The cookie carries a random id; this row (keyed by its sha256) is what
+ * makes the cookie valid, so signing out or changing the password ends it on the server too.
+ */
+export const sessions = mysqlTable('sessions', {
+  id: varchar('id', { length: 64 }).primaryKey(),
+  userId: uuid('user_id').notNull().references(() => users.id),
+  createdAt: stamp('created_at').notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+  expiresAt: stamp('expires_at').notNull(),
+}, t => [index('sessions_user_idx').on(t.userId)])

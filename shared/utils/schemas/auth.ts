@@ -35,3 +35,8 @@ export const shopParamsSchema = z.object({ shopId: uuidSchema })
 export const memberParamsSchema = z.object({ shopId: uuidSchema, userId: uuidSchema })
 export const invitationParamsSchema = z.object({ shopId: uuidSchema, invitationId: uuidSchema })
 export const tokenParamsSchema = z.object({ token: z.string().min(10).max(200) })
+
+export const passwordChangeSchema = z.object({
+  currentPassword: z.string().min(1, { message: 'enter your current password' }).max(200),
+  newPassword: passwordSchema,
+}).refine(b => b.newPassword !== b.currentPassword, { message: 'choose a password different from the current one', path: ['newPassword'] })

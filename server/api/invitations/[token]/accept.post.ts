@@ -8,7 +8,6 @@ export default defineEventHandler(async (event) => {
   const [user] = await db.select({ email: tables.users.email }).from(tables.users).where(eq(tables.users.id, userId))
   if (!user) throw createError({ statusCode: 401, message: 'Sign in first.' })
   const shopId = await db.transaction(tx => acceptInvitation(tx, token, { id: userId, email: user.email }))
-  const session = await getUserSession(event)
-  await replaceUserSession(event, { ...session, user: { id: userId }, activeShopId: shopId })
+  await setSessionShop(event, shopId)
   return await loadMe(userId, shopId)
 })
