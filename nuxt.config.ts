@@ -75,9 +75,10 @@ export default defineNuxtConfig({
   },
   nitro: {
     prerender: { routes: ['/'] },
-    // Retube reminders (server/tasks/rigs/reminders.ts), checked every hour.
+    // Retube reminders (server/tasks/rigs/reminders.ts), checked every hour; mail the mail
+    // server refused (server/tasks/mail/retry.ts), every minute.
     experimental: { tasks: true },
-    scheduledTasks: { '0 * * * *': ['rigs:reminders'] },
+    scheduledTasks: { '0 * * * *': ['rigs:reminders'], '* * * * *': ['mail:retry'] },
   },
   tailwindcss: { cssPath: false, viewer: false },
   pwa: {

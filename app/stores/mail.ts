@@ -1,6 +1,6 @@
 import { defineStore } from 'pinia'
 
-export interface SentMail { id: string, to: string, subject: string, body: string, delivered: boolean, createdAt: string }
+export interface SentMail { id: string, to: string, subject: string, body: string, delivered: boolean, retrying: boolean, createdAt: string }
 
 /** The shop's sent e-mail (owner): straight from the server, so it needs a connection. */
 export const useMailStore = defineStore('mail', () => {

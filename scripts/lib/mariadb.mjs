@@ -56,11 +56,12 @@ async function canConnect(opts) {
 }
 
 /** Make the system tables in an empty data dir; root on the socket has no password. */
-export function mariadbInstallDb(dataDir, user = process.getuid?.() === 0 ? 'root' : '') {
+export function mariadbInstallDb(dataDir, user = process.getuid?.() === 0 ? 'root' : '', tmpDir = null) {
   mkdirSync(dataDir, { recursive: true })
   user = user ? [`--user=${user}`] : []
+  const tmp = tmpDir ? [`--tmpdir=${tmpDir}`] : []
   execFileSync(bin('mariadb-install-db'), [
-    `--datadir=${dataDir}`, '--auth-root-authentication-method=normal', '--skip-test-db', ...user,
+    `--datadir=${dataDir}`, '--auth-root-authentication-method=normal', '--skip-test-db', ...tmp, ...user,
   ], { stdio: ['ignore', 'ignore', 'inherit'] })
 }
 
@@ -73,9 +74,12 @@ export async function startMariadb({ dir, port, log = console.log }) {
   ensureMariadbInstalled(log)
   const dataDir = join(dir, 'data')
   const socket = join(dir, 'mariadbd.sock')
+  // Its own temp dir: servers of parallel runs sharing /tmp can pick the same temp table names.
+  const tmpDir = join(dir, 'tmp')
+  mkdirSync(tmpDir, { recursive: true })
   if (!existsSync(join(dataDir, 'mysql'))) {
     log(`Initialising a MariaDB data directory in ${dataDir}`)
-    mariadbInstallDb(dataDir)
+    mariadbInstallDb(dataDir, undefined, tmpDir)
   }
   let pid = readPid(dir)
   let started = false
@@ -83,7 +87,7 @@ export async function startMariadb({ dir, port, log = console.log }) {
     const out = openSync(join(dir, 'mariadbd.log'), 'a')
     const user = process.getuid?.() === 0 ? ['--user=root'] : []
     const child = spawn(bin('mariadbd'), [
-      '--no-defaults', `--datadir=${dataDir}`, `--socket=${socket}`, `--port=${port}`,
+      '--no-defaults', `--datadir=${dataDir}`, `--socket=${socket}`, `--port=${port}`, `--tmpdir=${tmpDir}`,
       '--bind-address=127.0.0.1', `--pid-file=${join(dir, 'mariadbd.pid')}`, ...user,
       '--skip-name-resolve', '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci',
       '--innodb-flush-log-at-trx-commit=2', '--max-connections=500', '--log-error=' + join(dir, 'mariadbd.err'),

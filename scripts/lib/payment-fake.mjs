@@ -101,7 +101,11 @@ export function startPaymentFake({ port = 0, secretKey, webhookSecret, webhookUr
       const address = server.address()
       resolve({
         port: address.port,
-        close: cb => server.close(cb),
+        // Keep-alive sockets too, so a closed fake is really gone (a test stops it mid-run).
+        close: (cb) => {
+          server.close(cb)
+          server.closeAllConnections()
+        },
         setWebhookUrl: (url) => { target = url },
         deliveries,
       })

@@ -52,9 +52,11 @@ export async function startThrowawayStack({ log = console.log, demoPassword = 't
     const paymentWebhookSecret = `whsec_${randomBytes(24).toString('hex')}`
     // Lets the API tests run the retube reminder task on demand (POST /api/rigs/reminders/run).
     const rigReminderSecret = randomBytes(24).toString('hex')
-    parts.payments = await startPaymentFake({
+    const paymentOptions = {
       secretKey: paymentSecretKey, webhookSecret: paymentWebhookSecret, webhookUrl: `http://127.0.0.1:${appPort}/api/payments/webhook`,
-    })
+    }
+    parts.payments = await startPaymentFake(paymentOptions)
+    const paymentPort = parts.payments.port
     const appEnv = {
       NUXT_DATABASE_URL: dbUrl,
       NUXT_SESSION_PASSWORD: randomBytes(32).toString('hex'),
@@ -70,8 +72,35 @@ export async function startThrowawayStack({ log = console.log, demoPassword = 't
     }
     parts.server = await startAppServer({ port: appPort, env: appEnv, stdio: serverStdio })
     log(`app server on ${parts.server.url}`)
+    const mariadbDir = join(tmp, 'mariadb')
+    const closed = server => new Promise(resolve => server.close(() => resolve()))
     return {
       url: parts.server.url,
+      /** The app's process id: a test that takes a dependency away checks the same process recovers. */
+      serverPid: parts.server.child.pid,
+      // Stop and start each dependency on the same port (and MariaDB on the same data), for resilience tests.
+      mariadb: {
+        port: dbPort,
+        dir: mariadbDir,
+        stop: () => stopMariadb({ dir: mariadbDir, log }),
+        start: () => startMariadb({ dir: mariadbDir, port: dbPort, log }),
+      },
+      smtp: {
+        port: smtpPort,
+        stop: () => closed(parts.smtp),
+        start: async () => {
+          parts.smtp = await startSmtpFake({ port: smtpPort, dir: mailDir })
+        },
+      },
+      payments: {
+        port: paymentPort,
+        /** What the running fake delivered to the webhook (a restarted fake starts empty). */
+        deliveries: () => parts.payments.deliveries,
+        stop: () => closed(parts.payments),
+        start: async () => {
+          parts.payments = await startPaymentFake({ ...paymentOptions, port: paymentPort })
+        },
+      },
       dbUrl,
       mailDir,
       appEnv,

@@ -18,6 +18,35 @@ export async function hasPendingPayment(invoiceId: string) {
   return !!row
 }
 
+const providerDown = (what: string) => createError({ statusCode: 503, message: `The payment service is not answering; ${what} Try again in a moment.` })
+
+/**
+ * A payment started earlier whose confirm never got an answer (the provider went away) stays
+ * pending. Paying again picks it up: confirmed now if the provider never saw the confirm, left to
+ * its webhook if it did. So a retry after an outage charges once and records one payment row.
+ */
+async function resumePending(invoiceId: string) {
+  const [pending] = await useDb().select().from(tables.payments)
+    .where(and(eq(tables.payments.invoiceId, invoiceId), eq(tables.payments.status, 'pending'), eq(tables.payments.method, 'online'))).limit(1)
+  if (!pending?.providerIntentId) return null
+  const payments = usePayments()
+  const intent = await payments.paymentIntents.retrieve(pending.providerIntentId).catch((error: { statusCode?: number }) => {
+    if (error.statusCode === 404) return null
+    throw providerDown('your earlier payment is still waiting and nothing more was charged.')
+  })
+  if (!intent) {
+    // The provider has no such payment, so it took nothing: start afresh.
+    await useDb().update(tables.payments).set({ status: 'failed' }).where(eq(tables.payments.id, pending.id))
+    return null
+  }
+  if (intent.status === 'requires_confirmation' || intent.status === 'requires_payment_method') {
+    await payments.paymentIntents.confirm(intent.id, { payment_method: TEST_PAYMENT_METHOD }).catch(() => {
+      throw providerDown('your earlier payment is still waiting and nothing more was charged.')
+    })
+  }
+  return { paymentId: pending.id, status: 'pending' as const }
+}
+
 /**
  * Pays a sent invoice through the payment provider (signed in, or through its pay link with
  * `userId` null). Answers pending: the invoice is marked paid only when the provider's webhook says so.
@@ -26,6 +55,8 @@ export async function startOnlinePayment(shopId: string, invoiceId: string, user
   const invoice = await findInvoice(useDb(), shopId, invoiceId)
   if (invoice.kind !== 'invoice') throw createError({ statusCode: 400, message: 'An estimate cannot be paid; send an invoice.' })
   if (invoice.state !== 'sent') throw notPayable(invoice.state)
+  const resumed = await resumePending(invoiceId)
+  if (resumed) return resumed
 
   const payments = usePayments()
   const intent = await payments.paymentIntents.create({
@@ -33,7 +64,7 @@ export async function startOnlinePayment(shopId: string, invoiceId: string, user
     currency: invoice.currency,
     metadata: { invoiceId: invoice.id, shopId },
   }).catch(() => {
-    throw createError({ statusCode: 502, message: 'The payment provider did not answer. Try again.' })
+    throw providerDown('nothing was charged.')
   })
 
   const paymentId = randomUUID()
@@ -48,7 +79,9 @@ export async function startOnlinePayment(shopId: string, invoiceId: string, user
   try {
     await payments.paymentIntents.confirm(intent.id, { payment_method: TEST_PAYMENT_METHOD })
   }
-  catch {
+  catch (error) {
+    // No answer at all: the provider may have taken it, so the payment stays pending for a retry to settle.
+    if ((error as { type?: string }).type === 'StripeConnectionError') throw providerDown('the payment is kept and nothing more will be charged.')
     await useDb().update(tables.payments).set({ status: 'failed' }).where(eq(tables.payments.id, paymentId))
     throw createError({ statusCode: 502, message: 'The payment could not be confirmed. Try again.' })
   }

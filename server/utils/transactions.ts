@@ -22,8 +22,18 @@ function code(error: unknown): string | undefined {
   return undefined
 }
 
+/** mysql2 marks an error on a connection that died under it fatal, often with no code. */
+function lostConnection(error: unknown) {
+  let e = error as { fatal?: unknown, message?: unknown, cause?: unknown } | undefined
+  for (let i = 0; e && i < 5; i++) {
+    if (e.fatal === true && typeof e.message === 'string' && /connection/i.test(e.message)) return true
+    e = e.cause as typeof e
+  }
+  return false
+}
+
 export const isRetryable = (error: unknown) => RETRYABLE.has(code(error) ?? '')
-export const isUnavailable = (error: unknown) => UNAVAILABLE.has(code(error) ?? '') || isRetryable(error)
+export const isUnavailable = (error: unknown) => UNAVAILABLE.has(code(error) ?? '') || isRetryable(error) || lostConnection(error)
 
 /** Retries and give-ups since this process started, for operators and the cluster soak. */
 export const retryCounts = { retried: 0, gaveUp: 0 }

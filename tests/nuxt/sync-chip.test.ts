@@ -66,6 +66,6 @@ describe('AppSyncChip over the real sync store', () => {
     expect(state().text()).toContain('needs a decision')
     expect(state().text()).toContain('1')
     expect(state().attributes('data-state')).toBe('conflict')
-    expect(state().attributes('aria-label')).toBe('Sync: needs a decision, offline, 1 change waiting, 1 to decide')
+    expect(state().attributes('aria-label')).toBe('Sync: needs a decision 1 offline; 1 change waiting, 1 to decide')
   })
 })

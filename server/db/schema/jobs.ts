@@ -190,6 +190,12 @@ export const sentMail = mysqlTable('sent_mail', {
   toAddress: varchar('to_address', { length: 254 }).notNull(),
   subject: varchar('subject', { length: 300 }).notNull(),
   body: text('body').notNull(),
+  replyTo: varchar('reply_to', { length: 254 }),
   delivered: boolean('delivered').notNull(),
+  // The durable outbox: an undelivered message is tried again at next_attempt_at (null: delivered
+  // or given up); a sender holds claimed_until while it talks to the mail server, so it goes once.
+  attempts: int('attempts').notNull().default(0),
+  nextAttemptAt: stamp('next_attempt_at'),
+  claimedUntil: stamp('claimed_until'),
   createdAt: stamp('created_at').notNull().default(sql`CURRENT_TIMESTAMP(3)`),
-}, t => [index('sent_mail_shop_idx').on(t.shopId, t.createdAt)])
+}, t => [index('sent_mail_shop_idx').on(t.shopId, t.createdAt), index('sent_mail_due_idx').on(t.delivered, t.nextAttemptAt)])
