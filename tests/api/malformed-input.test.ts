@@ -52,6 +52,8 @@ const TARGETS: Record<string, Target> = {
   'amps/index.post.ts': { path: () => '/api/amps', body: s => ({ customerId: s.customer, description: 'combo', powerTubeCount: 2, biasMode: 'fixed' }), free: ['description'], refs: ['customerId'] },
   'auth/active-shop.post.ts': { path: () => '/api/auth/active-shop', body: s => ({ shopId: s.shopId }), refs: ['shopId'] },
   'auth/login.post.ts': { path: () => '/api/auth/login', body: () => ({ email: 'nobody@test.example', password: 'x' }), free: ['password'] },
+  // The current password is wrong, so no spoiled body can change the owner's password.
+  'auth/password.post.ts': { path: () => '/api/auth/password', body: () => ({ currentPassword: 'not-the-password', newPassword: 'another-long-password' }), free: ['currentPassword', 'newPassword'] },
   'auth/register.post.ts': { path: () => '/api/auth/register', body: () => ({ email: 'someone@test.example', name: 'Some One', password: 'long-enough-password', invitationToken: 'abcdefghijkl' }), free: ['name', 'password'] },
   'blobs/[sha256].get.ts': { path: s => `/api/blobs/${s.photo}` },
   'blobs/[sha256].put.ts': { path: () => `/api/blobs/${photo().sha256}`, raw: 'photo' },
@@ -99,6 +101,7 @@ const TARGETS: Record<string, Target> = {
   'stock/sets/[id].delete.ts': { path: s => `/api/stock/sets/${s.set}` },
   'stock/sets/[id].get.ts': { path: s => `/api/stock/sets/${s.set}` },
   'stock/sets/[id].patch.ts': { path: s => `/api/stock/sets/${s.set}`, body: () => ({ label: 'S-1', priceCents: 100 }), free: ['label'] },
+  'stock/sets/[id]/return.post.ts': { path: s => `/api/stock/sets/${s.set}/return` },
   'stock/sets/[id]/fit.post.ts': { path: s => `/api/stock/sets/${s.set}/fit`, body: s => ({ jobId: s.job, priceCents: 100 }), refs: ['jobId'] },
   'stock/sets/index.post.ts': { path: () => '/api/stock/sets', body: s => ({ tubeType: '6l6gc', label: 'S-2', tubeIds: s.tubes, size: 2, spreadFraction: 0.02 }), free: ['label'], refs: ['tubeIds'] },
   'stock/tubes/[id].delete.ts': { path: s => `/api/stock/tubes/${s.stockTube}` },

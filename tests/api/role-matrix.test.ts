@@ -71,6 +71,8 @@ export const ROUTES: Record<string, Case | Case[]> = {
   'auth/login.post.ts': { build: x => ({ path: '/api/auth/login', body: { email: x.ids.spareEmail, password: 'long-enough-password' } }), expect: everyone(200) },
   'auth/logout.post.ts': { build: () => ({ path: '/api/auth/logout' }), expect: everyone(200), fresh: true },
   'auth/me.get.ts': { build: () => ({ path: '/api/auth/me' }), expect: signedIn(200) },
+  // A wrong current password, so no demo password changes and no other session of the matrix ends.
+  'auth/password.post.ts': { build: () => ({ path: '/api/auth/password', body: { currentPassword: 'not-the-password', newPassword: 'another-long-password' } }), expect: [401, 403, 403, 403, 403, 403] },
   'auth/register.post.ts': { build: () => ({ path: '/api/auth/register', body: { email: `new-${tag()}@test.example`, name: 'New person', password: 'long-enough-password' } }), expect: everyone(201) },
 
   // Photos belong to the shop that holds them; any member may add one or open it.
@@ -219,6 +221,16 @@ export const ROUTES: Record<string, Case | Case[]> = {
   'stock/sets/[id].get.ts': { build: x => ({ path: `/api/stock/sets/${x.ids.set}` }), expect: [401, 200, 200, 200, 403, 404], rule: ['matchedSets', 'read'] },
   'stock/sets/[id].patch.ts': { build: x => ({ path: `/api/stock/sets/${x.ids.set}`, body: { label: `S-${tag().slice(0, 5)}` } }), expect: [401, 200, 200, 403, 403, 404], rule: ['matchedSets', 'update'] },
   'stock/sets/[id]/fit.post.ts': { build: async x => ({ path: `/api/stock/sets/${(await x.demo.matchedSet()).setId}/fit`, body: { jobId: await x.demo.job() } }), expect: [401, 200, 200, 403, 403, 404], rule: ['matchedSets', 'update'] },
+  'stock/sets/[id]/return.post.ts': {
+    build: async (x) => {
+      const { setId } = await x.demo.matchedSet()
+      const fit = await x.c.owner.post(`/api/stock/sets/${setId}/fit`, { jobId: await x.demo.job() })
+      if (fit.status !== 200) throw new Error(`fitting the set answered ${fit.status}`)
+      return { path: `/api/stock/sets/${setId}/return` }
+    },
+    expect: [401, 200, 200, 403, 403, 404],
+    rule: ['matchedSets', 'update'],
+  },
   'stock/sets/index.post.ts': {
     build: async (x) => {
       const setId = randomUUID()
