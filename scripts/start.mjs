@@ -59,6 +59,8 @@ const { child, url } = await startAppServer({
     NUXT_PAYMENT_API_PORT: String(payments.port),
     NUXT_PAYMENT_SECRET_KEY: env.NUXT_PAYMENT_SECRET_KEY,
     NUXT_PAYMENT_WEBHOOK_SECRET: env.NUXT_PAYMENT_WEBHOOK_SECRET,
+    // The photo store (local folder or S3), as set in .env or the environment.
+    ...Object.fromEntries(Object.entries(env).filter(([k]) => /^NUXT_(BLOB|S3)_/.test(k))),
   },
 })
 
