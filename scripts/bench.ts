@@ -21,7 +21,7 @@ const { login, newOwner } = await import('../tests/api/helpers/client')
 const { SYNC_SCHEMA_VERSION } = await import('../shared/utils/sync/protocol')
 const bare = only.includes('size') || only.includes('lighthouse') ? await startBare() : null
 const app = stack.url
-let failed = 0
+let failed: number | undefined
 try {
   const owner = await login('owner@larkspur.example')
   const cookie = owner.cookie
@@ -77,6 +77,22 @@ try {
     }
   }
 
+  if (only.includes('sync')) {
+    console.log('\nSync throughput, one client, batches of 500 (beside plain batched INSERTs)')
+    const { c, shopId, userId } = await newOwner('bench')
+    const s = await syncFigures(c, shopId, userId, stack.dbUrl, SYNC_SCHEMA_VERSION)
+    record({ group: 'sync', what: `plain batched INSERTs of 10,000 notes (reference)`, value: perSecond(s.insert), budget: 'none', pass: null })
+    record({ group: 'sync', what: 'push of 5,000 note.create', value: `${perSecond(s.push)} = ${(s.push / s.insert).toFixed(2)}x`, reference: perSecond(s.insert), budget: '>= 0.10x', pass: s.push / s.insert >= 0.1 })
+    record({ group: 'sync', what: `pull of ${s.rows.toLocaleString('en')} rows`, value: `${perSecond(s.pull)} = ${(s.pull / s.insert).toFixed(2)}x`, reference: perSecond(s.insert), budget: '>= 0.50x', pass: s.pull / s.insert >= 0.5 })
+  }
+
+  if (only.includes('sort')) {
+    console.log('\nTube sorter')
+    const s = sortFigures()
+    const ratio = s.ms / s.referenceMs
+    record({ group: 'sort', what: `sortIntoSets, 1,000 readings into sets of 4 (${s.sets} sets)`, value: `${s.ms.toFixed(2)} ms = ${ratio.toFixed(1)}x`, reference: `sorting the readings alone ${s.referenceMs.toFixed(2)} ms`, budget: '<= 5x', pass: ratio <= 5 })
+  }
+  // Last: the push load leaves the server busy with the requests still queued when it ends.
   if (only.includes('api')) {
     console.log('\nAPI under load (autocannon, 50 connections, 10 s each)')
     const busy = await newOwner('bench-busy')
@@ -108,21 +124,6 @@ try {
     judgeLoad('POST /api/sync/push, 100 new notes per request (50 devices, 10 shops)', push, health.rps)
   }
 
-  if (only.includes('sync')) {
-    console.log('\nSync throughput, one client, batches of 500 (beside plain batched INSERTs)')
-    const { c, shopId, userId } = await newOwner('bench')
-    const s = await syncFigures(c, shopId, userId, stack.dbUrl, SYNC_SCHEMA_VERSION)
-    record({ group: 'sync', what: `plain batched INSERTs of 10,000 notes (reference)`, value: perSecond(s.insert), budget: 'none', pass: null })
-    record({ group: 'sync', what: 'push of 5,000 note.create', value: `${perSecond(s.push)} = ${(s.push / s.insert).toFixed(2)}x`, reference: perSecond(s.insert), budget: '>= 0.10x', pass: s.push / s.insert >= 0.1 })
-    record({ group: 'sync', what: `pull of ${s.rows.toLocaleString('en')} rows`, value: `${perSecond(s.pull)} = ${(s.pull / s.insert).toFixed(2)}x`, reference: perSecond(s.insert), budget: '>= 0.50x', pass: s.pull / s.insert >= 0.5 })
-  }
-
-  if (only.includes('sort')) {
-    console.log('\nTube sorter')
-    const s = sortFigures()
-    const ratio = s.ms / s.referenceMs
-    record({ group: 'sort', what: `sortIntoSets, 1,000 readings into sets of 4 (${s.sets} sets)`, value: `${s.ms.toFixed(2)} ms = ${ratio.toFixed(1)}x`, reference: `plain sort of the readings ${s.referenceMs.toFixed(2)} ms`, budget: '<= 5x', pass: ratio <= 5 })
-  }
   failed = summary()
 }
 finally {

@@ -3,7 +3,8 @@ import { randomUUID } from 'node:crypto'
 import { performance } from 'node:perf_hooks'
 import { createConnection } from 'mysql2/promise'
 
-type Poster = { post: (path: string, body: unknown) => Promise<{ status: number, body: any }> }
+interface Pull { changes: unknown[], cookie: string | null, more: boolean }
+type Poster = { post: (path: string, body: unknown) => Promise<{ status: number, body: unknown }> }
 
 export async function syncFigures(c: Poster, shopId: string, userId: string, dbUrl: string, schemaVersion: number) {
   const clientId = randomUUID()
@@ -27,10 +28,10 @@ export async function syncFigures(c: Poster, shopId: string, userId: string, dbU
   let rows = 0
   const puller = randomUUID()
   for (;;) {
-    const r = await c.post('/api/sync/pull', { clientId: puller, shopId, schemaVersion, cookie })
-    rows += r.body.changes.length
-    cookie = r.body.cookie
-    if (!r.body.more) break
+    const page = (await c.post('/api/sync/pull', { clientId: puller, shopId, schemaVersion, cookie })).body as Pull
+    rows += page.changes.length
+    cookie = page.cookie
+    if (!page.more) break
   }
   const pullMs = performance.now() - t
 
