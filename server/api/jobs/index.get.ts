@@ -40,6 +40,6 @@ export default defineEventHandler(async (event) => {
   ])
   const byStatus = Object.fromEntries(counts.map(r => [r.status, r.n])) as Partial<Record<JobState, number>>
   // The total is the counts of the statuses asked for: no third query.
-  const total = (query.status ?? JOB_STATES).reduce((sum, s) => sum + (byStatus[s] ?? 0), 0)
+  const total = ((query.status ?? JOB_STATES) as readonly JobState[]).reduce((sum, s) => sum + (byStatus[s] ?? 0), 0)
   return { items, total, page: query.page, pageSize: query.pageSize, counts: byStatus }
 })

@@ -6,6 +6,7 @@ import { readBody, setResponseStatus } from 'h3'
 import type { PullReply, PushBody, RowChange } from '#shared/utils/sync/protocol'
 import { flushPromises } from '@vue/test-utils'
 import { useSessionStore } from '~/stores/session'
+import { startSync } from '~/utils/sync/start'
 
 // Dexie read its dependencies when the app loaded, before fake-indexeddb existed.
 Dexie.dependencies.indexedDB = indexedDB
@@ -20,6 +21,8 @@ export function signInLocally(role: 'tech' | 'owner' | 'player' = 'tech', user =
     memberships: [{ shopId: SHOP_ID, shopName: 'Larkspur Amp Works', role }],
     activeShop: { id: SHOP_ID, name: 'Larkspur Amp Works', role },
   }
+  // The app starts sync once its first page is on screen (plugins/sync.client.ts); here there is no page.
+  startSync()
   return user
 }
 
