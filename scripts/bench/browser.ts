@@ -22,7 +22,8 @@ const MARK_FIRST_SCREEN = () => {
 export interface FirstLoad { firstScreen: number, after: number, files: number, afterFiles: number }
 
 /**
- * JS and CSS the first screen waited for (requested before its heading appeared), each file
+ * JS and CSS the first screen waited for (loaded before its heading appeared: a file still on
+ * its way then cannot have been waited for), each file
  * gzipped here at the default level so the figure does not depend on how the server sends it;
  * `after` is what loaded later, until the network went quiet (sync, the service worker's page).
  */
@@ -39,7 +40,7 @@ export async function firstLoad(browser: Browser, base: string, path: string, co
     await page.waitForFunction(() => (window as unknown as { __firstScreen?: number }).__firstScreen !== undefined)
     const { entries, at } = await page.evaluate(() => ({
       at: (window as unknown as { __firstScreen: number }).__firstScreen,
-      entries: performance.getEntriesByType('resource').map(e => ({ name: e.name, start: e.startTime })),
+      entries: (performance.getEntriesByType('resource') as PerformanceResourceTiming[]).map(e => ({ name: e.name, end: e.responseEnd })),
     }))
     const assets = entries.filter(e => /\.(js|css)(\?|$)/.test(new URL(e.name).pathname) && e.name.startsWith(base))
     const seen = new Set<string>()
@@ -49,7 +50,7 @@ export async function firstLoad(browser: Browser, base: string, path: string, co
       seen.add(e.name)
       const body = Buffer.from(await (await fetch(e.name)).arrayBuffer())
       const size = gzipSync(body).length
-      if (e.start <= at) {
+      if (e.end <= at) {
         result.firstScreen += size
         result.files++
       }
