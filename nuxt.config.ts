@@ -112,7 +112,7 @@ export default defineNuxtConfig({
   experimental: {
     // Links load their page's code when touched or focused, not whenever they scroll into view:
     // on a slow phone that work competes with the first screen (the service worker has it all anyway).
-    defaults: { nuxtLink: { prefetchOn: 'interaction' } },
+    defaults: { nuxtLink: { prefetchOn: { visibility: false, interaction: true } } },
   },
   typescript: { strict: true },
   eslint: { config: { stylistic: false } },
