@@ -71,10 +71,20 @@ export default defineNuxtConfig({
     },
   },
   routeRules: {
-    '/': { prerender: true },
+    // Cache lifetimes (kept apart from any other headers): hashed build files never change, so
+    // they are immutable for a year; the shell, the service worker and the manifest are checked
+    // on every load so an update is seen at once.
+    '/_nuxt/**': { headers: { 'cache-control': 'public, max-age=31536000, immutable' } },
+    '/': { prerender: true, headers: { 'cache-control': 'no-cache' } },
+    '/index.html': { headers: { 'cache-control': 'no-cache' } },
+    '/sw.js': { headers: { 'cache-control': 'no-cache' } },
+    '/manifest.webmanifest': { headers: { 'cache-control': 'no-cache' } },
   },
   nitro: {
     prerender: { routes: ['/'] },
+    // Every file in public/ and the build is stored beside its .br and .gz; the server sends the
+    // one the browser accepts. Cache lifetimes are in routeRules above.
+    compressPublicAssets: { gzip: true, brotli: true },
     // Retube reminders (server/tasks/rigs/reminders.ts), checked every hour; mail the mail
     // server refused (server/tasks/mail/retry.ts), every minute.
     experimental: { tasks: true },
@@ -108,6 +118,18 @@ export default defineNuxtConfig({
     experimental: { enableWorkboxPayloadQueryParams: true },
     client: { installPrompt: false, periodicSyncForUpdates: 60 * 60 },
     devOptions: { enabled: false },
+  },
+  hooks: {
+    // No <link rel="prefetch"> for every chunk in the shell: on a slow link they compete with the
+    // first screen, and the service worker fetches them all once the page has loaded anyway.
+    'build:manifest': (manifest) => {
+      for (const chunk of Object.values(manifest)) chunk.prefetch = false
+    },
+  },
+  experimental: {
+    // Links load their page's code when touched or focused, not whenever they scroll into view:
+    // on a slow phone that work competes with the first screen (the service worker has it all anyway).
+    defaults: { nuxtLink: { prefetchOn: { visibility: false, interaction: true } } },
   },
   typescript: { strict: true },
   eslint: { config: { stylistic: false } },

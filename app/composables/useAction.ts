@@ -1,3 +1,5 @@
+export const NEEDS_CONNECTION = 'This needs a connection to the shop server. Your other work stays on this device.'
+
 /**
  * What went wrong, in words: no answer from the server (offline) says so; the server's message
  * or a local refusal's own sentence otherwise.

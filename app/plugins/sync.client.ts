@@ -1,5 +1,19 @@
-// Starts the on-device store, background sync and the photo queue; the app never waits for them.
-export default defineNuxtPlugin(() => {
-  useSyncStore().start()
-  usePhotosStore().start()
+// Starts the on-device store, background sync and the photo queue once the first page is on
+// screen: the sync engine, Dexie and the stores load in their own chunks, so no page waits for them.
+export default defineNuxtPlugin((nuxtApp) => {
+  let asked = false
+  const start = () => {
+    if (asked) return
+    asked = true
+    void import('~/utils/sync/start').then(({ startSync }) => startSync())
+  }
+  const idle = (fn: () => void) => ('requestIdleCallback' in window ? window.requestIdleCallback(fn, { timeout: 1000 }) : setTimeout(fn, 100))
+  // After the frame that shows the first page, when the browser has a moment.
+  nuxtApp.hooks.hookOnce('page:finish', () => {
+    requestAnimationFrame(() => idle(start))
+  })
+  // A first screen with no page (the error page) still gets its sync, a little later.
+  nuxtApp.hook('app:mounted', () => {
+    setTimeout(start, 3000)
+  })
 })

@@ -1,7 +1,6 @@
 import { defineStore } from 'pinia'
 import type { InvoiceRecord } from '#shared/types/records'
 
-export const NEEDS_CONNECTION = 'This needs a connection to the shop server. Your other work stays on this device.'
 const PAY_POLL_MS = 2_000
 const PAY_POLL_LIMIT = 90
 

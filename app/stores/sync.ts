@@ -7,21 +7,12 @@ import { syncStateOf, type SyncState } from '~/utils/sync/status'
 import type { ConflictChoice } from '~/utils/sync/conflict-view'
 import { STORAGE_KEYS } from '~/utils/storage-keys'
 import { backoffDelay } from '~/utils/sync/backoff'
+import { readUnsentHint, type UnsentHint } from '~/utils/sync/unsent'
+
+export { readUnsentHint, type UnsentHint } from '~/utils/sync/unsent'
 
 export const SYNC_DEBOUNCE_MS = 800
 export const SYNC_INTERVAL_MS = 45_000
-
-export interface UnsentHint { userId: string, name: string, email: string, count: number }
-
-export function readUnsentHint(): UnsentHint | null {
-  try {
-    const raw = localStorage.getItem(STORAGE_KEYS.unsent)
-    return raw ? (JSON.parse(raw) as UnsentHint) : null
-  }
-  catch {
-    return null
-  }
-}
 
 const isQuotaError = (e: unknown) => {
   const err = e as { name?: string, inner?: { name?: string } } | null

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { BASE, DEMO_PASSWORD, hydrated, phone, browserForFile } from './helpers/browser'
+import { BASE, DEMO_PASSWORD, hydrated, pageAs, phone, browserForFile } from './helpers/browser'
 
 const browser = browserForFile({ artifacts: true })
 
@@ -76,5 +76,14 @@ describe('the app shell at 360 x 800', () => {
     await guest.waitForURL(`${BASE}/`)
     await guest.getByText('Larkspur Amp Works').first().waitFor()
     await context.close()
+  })
+
+  it('opens the Bench at /bench, where its tools live', async () => {
+    const page = await pageAs(browser, 'tech@larkspur.example', '/bench')
+    await page.waitForURL(`${BASE}/`)
+    await page.getByRole('heading', { level: 1, name: 'Bench' }).waitFor()
+    await page.getByRole('list', { name: 'Bench tools' }).getByRole('link', { name: /Idle dissipation/ }).click()
+    await page.waitForURL(/\/bench\/idle-dissipation$/)
+    await page.context().close()
   })
 })

@@ -48,6 +48,12 @@ export const jobs = mysqlTable('jobs', {
   index('jobs_shop_version_idx').on(t.shopId, t.version),
   index('jobs_customer_idx').on(t.customerId),
   index('jobs_shop_status_idx').on(t.shopId, t.status),
+  // GET /api/jobs: one index per sort it offers (ties by updated_at, then the primary key), and the tech filter.
+  index('jobs_list_updated_idx').on(t.shopId, t.deletedAt, t.updatedAt),
+  index('jobs_list_promised_idx').on(t.shopId, t.deletedAt, t.promisedFor, t.updatedAt),
+  index('jobs_list_status_idx').on(t.shopId, t.deletedAt, t.status, t.updatedAt),
+  index('jobs_list_priority_idx').on(t.shopId, t.deletedAt, t.priority, t.updatedAt),
+  index('jobs_assigned_idx').on(t.shopId, t.assignedTo, t.updatedAt),
 ])
 
 export const jobParts = mysqlTable('job_parts', {

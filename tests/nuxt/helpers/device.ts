@@ -6,6 +6,7 @@ import { readBody, setResponseStatus } from 'h3'
 import type { PullReply, PushBody, RowChange } from '#shared/utils/sync/protocol'
 import { flushPromises } from '@vue/test-utils'
 import { useSessionStore } from '~/stores/session'
+import { startSync } from '~/utils/sync/start'
 
 // Dexie read its dependencies when the app loaded, before fake-indexeddb existed.
 Dexie.dependencies.indexedDB = indexedDB
@@ -15,6 +16,9 @@ export const SHOP_ID = '6f1c2a10-0000-4000-8000-00000000a001'
 
 /** Sign in on the device only (as a cached session would be), with a fresh user id and database. */
 export function signInLocally(role: 'tech' | 'owner' | 'player' = 'tech', user = { id: crypto.randomUUID(), name: 'Owen Pryde', email: 'tech@larkspur.example' }) {
+  // The app starts sync once its first page is on screen (plugins/sync.client.ts); here there is
+  // no page, so start it here, before the user arrives, as the app did before the page.
+  startSync()
   useSessionStore().me = {
     user,
     memberships: [{ shopId: SHOP_ID, shopName: 'Larkspur Amp Works', role }],
