@@ -6,7 +6,7 @@ import type { BrowserContext, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { STORAGE_KEYS } from '../../app/utils/storage-keys'
 import { apiLogin, BASE, browserForFile, hydrated, phone } from './helpers/browser'
-import { makeDemoRecords, pageRoutes, PAGES, type Made } from './helpers/pages'
+import { makeDemoRecords, pageRoutes, PAGES, resolveConflict, type Made } from './helpers/pages'
 
 const browser = browserForFile()
 // axe-core's own build, from node_modules (never fetched), injected once per page: the app
@@ -23,8 +23,11 @@ const contexts = new Map<string, BrowserContext>()
 beforeAll(async () => {
   made = await makeDemoRecords()
 }, 60_000)
+let conflictIds: string[] = []
 afterAll(async () => {
   for (const c of contexts.values()) await c.close()
+  // The other browser tests expect the demo shop in sync: decide what is open.
+  for (const id of conflictIds) await resolveConflict(id)
 })
 
 /** One page per person, signed in once; later addresses open inside the app, as a person moves through it. */
@@ -75,7 +78,9 @@ async function conflictPath(page: Page) {
   await open(page, '/sync')
   const link = page.locator('a[href^="/sync/conflicts/"]').first()
   await link.waitFor({ timeout: 20_000 })
-  return (await link.getAttribute('href'))!
+  const hrefs = await page.locator('a[href^="/sync/conflicts/"]').evaluateAll(links => links.map(a => a.getAttribute('href')!))
+  conflictIds = hrefs.map(h => h.split('/').at(-1)!)
+  return hrefs[0]!
 }
 
 function describeViolations(results: AxeResults) {

@@ -76,6 +76,13 @@ async function signIn(email: string): Promise<Client> {
 const push = (c: Client, clientId: string, mutations: { id: number, name: string, args: unknown, baseVersion?: number }[]) =>
   c.post('/api/sync/push', { clientId, shopId: DEMO.shopId, schemaVersion: SYNC_SCHEMA_VERSION, mutations: mutations.map(m => ({ uuid: randomUUID(), ...m })) })
 
+/** Decides the conflict made below (the other browser tests expect the demo shop to be in sync). */
+export async function resolveConflict(conflictId: string) {
+  const owner = await signIn(DEMO.owner)
+  const r = await push(owner, randomUUID(), [{ id: 1, name: 'conflict.resolve', args: { id: conflictId, value: 'Bias steady after an hour' } }])
+  if (r.status !== 200) throw new Error(`resolving the conflict: ${r.status} ${JSON.stringify(r.body)}`)
+}
+
 /** What the token and conflict pages need: an invitation, a sent invoice's pay link, an open conflict. */
 export async function makeDemoRecords(): Promise<Made> {
   const [owner, desk, tech] = await Promise.all([DEMO.owner, DEMO.desk, DEMO.tech].map(signIn))
