@@ -38,6 +38,8 @@ export interface PageRow {
 export const PAGES: Record<string, PageRow> = {
   '/': { as: DEMO.tech, path: () => '/' },
   '/account': { as: DEMO.owner, path: () => '/account' },
+  // Sends people to the Bench list at /.
+  '/bench': { as: DEMO.tech, path: () => '/bench' },
   '/bench/[tool]': { as: DEMO.tech, path: () => '/bench/idle-dissipation' },
   '/invite/[token]': { as: null, path: m => `/invite/${m.inviteToken}` },
   '/jobs': { as: DEMO.desk, path: () => '/jobs' },
