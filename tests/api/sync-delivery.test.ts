@@ -31,7 +31,7 @@ describe('delivery', () => {
     expect(server.size).toBe(5000)
     const seen = new Map((await watcher.db.notes.where('shopId').equals(shopId).toArray()).map(n => [n.id, `${n.title}|${n.body}`]))
     expect(sameMap(seen, server)).toBe(true)
-  }, 240_000)
+  }, 480_000)
 
   it('keeps 100 pending changes through a 401 and delivers all 100 after signing in again', async () => {
     const { shopId, members } = await shopWithMembers(0)
@@ -79,7 +79,7 @@ describe('delivery', () => {
     finally {
       server.kill()
     }
-  }, 240_000)
+  }, 480_000)
 
   it('answers 503 and changes nothing while the database is down; the device keeps its changes', async () => {
     const { shopId, members } = await shopWithMembers(0)
