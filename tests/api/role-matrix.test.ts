@@ -25,7 +25,7 @@ export interface Case {
   expect: readonly [number, number, number, number, number, number]
   /** The permission the route applies; the row is checked against PERMISSIONS too. */
   rule?: [RecordKind, Verb, { mine?: boolean }?]
-  /** Sign the person in afresh for this call (logout ends the session it is given). */
+  /** Sign the person in afresh for this call (signing out, or in again, on a device ends the session it had). */
   fresh?: boolean
 }
 
@@ -68,12 +68,12 @@ export const ROUTES: Record<string, Case | Case[]> = {
   'amps/index.post.ts': { build: x => ({ path: '/api/amps', body: { customerId: x.ids.customer, description: 'two-EL84 combo' } }), expect: [401, 201, 201, 201, 403, 404], rule: ['amps', 'create'] },
 
   'auth/active-shop.post.ts': { build: () => ({ path: '/api/auth/active-shop', body: { shopId: shop } }), expect: [401, 200, 200, 200, 200, 404] },
-  'auth/login.post.ts': { build: x => ({ path: '/api/auth/login', body: { email: x.ids.spareEmail, password: 'long-enough-password' } }), expect: everyone(200) },
+  'auth/login.post.ts': { build: x => ({ path: '/api/auth/login', body: { email: x.ids.spareEmail, password: 'long-enough-password' } }), expect: everyone(200), fresh: true },
   'auth/logout.post.ts': { build: () => ({ path: '/api/auth/logout' }), expect: everyone(200), fresh: true },
   'auth/me.get.ts': { build: () => ({ path: '/api/auth/me' }), expect: signedIn(200) },
   // A wrong current password, so no demo password changes and no other session of the matrix ends.
   'auth/password.post.ts': { build: () => ({ path: '/api/auth/password', body: { currentPassword: 'not-the-password', newPassword: 'another-long-password' } }), expect: [401, 403, 403, 403, 403, 403] },
-  'auth/register.post.ts': { build: () => ({ path: '/api/auth/register', body: { email: `new-${tag()}@test.example`, name: 'New person', password: 'long-enough-password' } }), expect: everyone(201) },
+  'auth/register.post.ts': { build: () => ({ path: '/api/auth/register', body: { email: `new-${tag()}@test.example`, name: 'New person', password: 'long-enough-password' } }), expect: everyone(201), fresh: true },
 
   // Photos belong to the shop that holds them; any member may add one or open it.
   'blobs/[sha256].get.ts': { build: x => ({ path: `/api/blobs/${x.ids.photo}` }), expect: [401, 200, 200, 200, 200, 404] },
