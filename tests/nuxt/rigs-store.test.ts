@@ -4,12 +4,15 @@ import { useRigsStore } from '~/stores/rigs'
 import { useSessionStore } from '~/stores/session'
 import { useSyncStore } from '~/stores/sync'
 import { useNotesStore } from '~/stores/notes'
+import { startSync } from '~/utils/sync/start'
 
 const SPACE = '6f1c2a10-0000-4000-8000-00000000b001'
 const tubes = [{ position: 'V4', type: '6V6GT' }, { position: 'V5', type: '6V6GT' }]
 
 /** A player signed in on the device, with or without a shop, and their own space. */
 function signInPlayer(withShop: boolean) {
+  // No page here to start sync after its first paint, so start it before the user arrives (as signInLocally does).
+  startSync()
   const user = { id: crypto.randomUUID(), name: 'Dana Whitlow', email: 'dana@players.example' }
   useSessionStore().me = {
     user,
