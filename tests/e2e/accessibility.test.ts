@@ -1,5 +1,6 @@
 // Every screen at 360 x 800 in both themes: no serious or critical axe findings, and bands and
 // sync states always carry a word and a shape besides their colour.
+import { readFileSync } from 'node:fs'
 import { createRequire } from 'node:module'
 import type { AxeResults, RunOptions } from 'axe-core'
 import type { BrowserContext, Page } from 'playwright-core'
@@ -10,11 +11,12 @@ import { makeDemoRecords, pageRoutes, PAGES, resolveConflict, type Made } from '
 
 const browser = browserForFile()
 // axe-core's own build, from node_modules (never fetched), injected once per page: the app
-// moves between addresses without reloading, so it stays.
-const AXE = createRequire(import.meta.url).resolve('axe-core/axe.min.js')
+// moves between addresses without reloading, so it stays. Evaluated from the test rather than
+// added as a <script>, which the app's content-security-policy rightly refuses.
+const AXE = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8')
 
 async function axe(page: Page, options: RunOptions = {}): Promise<AxeResults> {
-  if (!(await page.evaluate(() => 'axe' in window))) await page.addScriptTag({ path: AXE })
+  if (!(await page.evaluate(() => 'axe' in window))) await page.evaluate(AXE)
   return page.evaluate(o => (window as unknown as { axe: { run: (c: Document, o: RunOptions) => Promise<AxeResults> } }).axe.run(document, o), { ...options, resultTypes: ['violations'] } as RunOptions)
 }
 let made: Made
