@@ -33,13 +33,15 @@ export interface PageRow {
   /** Who looks (null: signed out). */
   as: string | null
   path: (made: Made) => string
+  /** Where the page sends people, when it is only a way to another screen. */
+  lands?: string
 }
 
 export const PAGES: Record<string, PageRow> = {
   '/': { as: DEMO.tech, path: () => '/' },
   '/account': { as: DEMO.owner, path: () => '/account' },
   // Sends people to the Bench list at /.
-  '/bench': { as: DEMO.tech, path: () => '/bench' },
+  '/bench': { as: DEMO.tech, path: () => '/bench', lands: '/' },
   '/bench/[tool]': { as: DEMO.tech, path: () => '/bench/idle-dissipation' },
   '/invite/[token]': { as: null, path: m => `/invite/${m.inviteToken}` },
   '/jobs': { as: DEMO.desk, path: () => '/jobs' },
