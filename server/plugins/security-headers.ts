@@ -18,6 +18,12 @@ export default defineNitroPlugin((nitro) => {
     setResponseHeaders(event, SECURITY_HEADERS)
   })
   nitro.hooks.hook('beforeResponse', (event, response) => {
+    // A 304 has no body to hash, and the browser lays the 304's headers over the copy it keeps:
+    // a policy without the page's hashes would then block the very page it revalidated.
+    if (getResponseStatus(event) === 304) {
+      removeResponseHeader(event, 'content-security-policy')
+      return
+    }
     const type = String(getResponseHeader(event, 'content-type') ?? '')
     if (!type.includes('text/html')) return
     const html = htmlOf(response.body, String(getResponseHeader(event, 'content-encoding') ?? ''))

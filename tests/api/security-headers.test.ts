@@ -55,6 +55,18 @@ describe('security headers on every kind of response', () => {
     }
   })
 
+  it('a revalidated shell (304) sends no policy, so the browser keeps the one with the hashes of the copy it holds', async () => {
+    // Source: RFC 9111 section 4.3.4 (freshening stored responses): the stored response's header
+    // fields are replaced by those the 304 carries, and kept where the 304 has none.
+    const first = await fetchRaw('/', { headers: { 'accept-encoding': 'br' } })
+    const etag = first.headers.get('etag')
+    expect(etag).toBeTruthy()
+    const again = await fetchRaw('/', { headers: { 'accept-encoding': 'br', 'if-none-match': etag! } })
+    expect(again.status).toBe(304)
+    expect(again.headers.get('content-security-policy')).toBeNull()
+    expect(again.headers.get('x-frame-options')).toBe('DENY')
+  })
+
   it('pages rendered on request (a deep link, the pay page, an unknown page)', async () => {
     for (const path of ['/jobs', '/pay/not-a-real-token-0123456789', '/no-such-page']) {
       const r = await fetchRaw(path)
