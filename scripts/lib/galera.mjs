@@ -9,12 +9,17 @@ import { ensureMariadbInstalled, mariadbInstallDb } from './mariadb.mjs'
 
 export const GALERA_PROVIDER = '/usr/lib/galera/libgalera_smm.so'
 
-function ensureGaleraInstalled() {
+/** Galera, rsync (its SST) and the server's SST script, from Debian's packages when run as root. */
+function ensureGaleraInstalled(log = console.log) {
   const missing = []
   if (!existsSync(GALERA_PROVIDER)) missing.push('galera-4')
   if (!existsSync('/usr/bin/rsync')) missing.push('rsync')
   if (!existsSync('/usr/bin/wsrep_sst_rsync')) missing.push('mariadb-server')
-  if (missing.length) throw new Error(`The cluster soak needs Debian packages: sudo apt-get install -y ${missing.join(' ')}`)
+  if (!missing.length) return
+  if (process.getuid?.() !== 0) throw new Error(`The cluster soak needs Debian packages: sudo apt-get install -y ${missing.join(' ')}`)
+  log(`Installing ${missing.join(', ')} from Debian packages (one time)...`)
+  execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit' })
+  execFileSync('apt-get', ['install', '-y', '-qq', ...missing], { stdio: 'inherit', env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } })
 }
 
 async function query(socket, sql) {
