@@ -155,10 +155,9 @@ export class SyncEngine {
         for (const t of VIEW_TABLES) await db.table(t).where('shopId').equals(this.shopId).delete()
       }
       const touched = new Set<string>(this.needsRebase)
-      for (const c of reply.changes) {
-        await db.server.put({ table: c.table, id: c.id, shopId: this.shopId, version: c.version, deleted: c.deleted, data: c.data } satisfies ServerRow)
-        touched.add(key(c.table, c.id))
-      }
+      // One bulk write per page: a put per row kept the first screen's main thread busy.
+      await db.server.bulkPut(reply.changes.map(c => ({ table: c.table, id: c.id, shopId: this.shopId, version: c.version, deleted: c.deleted, data: c.data } satisfies ServerRow)))
+      for (const c of reply.changes) touched.add(key(c.table, c.id))
       await db.meta.update(this.shopId, { cookie: reply.cookie, lmid: reply.lmid, lastSyncedAt: this.now().toISOString() })
       // Once the last page is in, answered changes the server applied (lmid, from this pull's
       // snapshot) are part of the server rows on this device and leave the outbox.
@@ -178,18 +177,24 @@ export class SyncEngine {
   private async rebase(keys: string[], pending: OutboxRow[], lmid: number) {
     const db = this.db
     const waiting = pending.filter(m => m.id > lmid)
-    for (const k of keys) {
-      const [table, id] = k.split(':') as [SyncedTable, string]
-      const s = await db.server.get([table, id])
+    const ids = keys.map(k => k.split(':') as [SyncedTable, string])
+    const servers = await db.server.bulkGet(ids)
+    const puts = new Map<SyncedTable, ViewRow[]>()
+    const deletes = new Map<SyncedTable, string[]>()
+    for (const [i, [table, id]] of ids.entries()) {
+      const k = keys[i]!
+      const s = servers[i]
       let row: ViewRow | undefined = s ? serverToView(s) : undefined
       for (const m of waiting) {
         if (!m.targets.includes(k)) continue
         const conflict = m.name === 'conflict.resolve' ? await db.conflicts.get(String(m.args.id)) as ConflictRow | undefined : undefined
         row = reduce(table, row, m, { userId: this.userId, shopId: this.shopId, conflict })
       }
-      if (row) await db.table<ViewRow, string>(table).put(row)
-      else await db.table(table).delete(id)
+      if (row) puts.set(table, puts.get(table) ?? []).get(table)!.push(row)
+      else deletes.set(table, deletes.get(table) ?? []).get(table)!.push(id)
     }
+    for (const [table, rows] of puts) await db.table<ViewRow, string>(table).bulkPut(rows)
+    for (const [table, gone] of deletes) await db.table(table).bulkDelete(gone)
   }
 
   /** Rebuild the whole view from server rows and the outbox (after a restart). */
