@@ -1,5 +1,5 @@
 import type { H3Event } from 'h3'
-import { and, eq, isNull } from 'drizzle-orm'
+import { and, eq, isNull, sql } from 'drizzle-orm'
 import type { Role } from '#shared/utils/roles'
 
 export interface ShopAccess {
@@ -15,6 +15,18 @@ export async function requireUserId(event: H3Event): Promise<string> {
   return session.user.id
 }
 
+// Built once each: every shop route runs one of these.
+const prepareMemberLookup = (personal: boolean) => useDb()
+  .select({ role: tables.memberships.role, since: tables.memberships.createdAt })
+  .from(tables.memberships)
+  .innerJoin(tables.shops, eq(tables.shops.id, tables.memberships.shopId))
+  .where(and(eq(tables.memberships.shopId, sql.placeholder('shopId')), eq(tables.memberships.userId, sql.placeholder('userId')), isNull(tables.shops.deletedAt),
+    // A personal space is reached only by sync (`personal`); every shop route answers 404 for it.
+    personal ? undefined : eq(tables.shops.kind, 'shop')))
+  .limit(1)
+  .prepare()
+const memberLookup: { shop?: ReturnType<typeof prepareMemberLookup>, any?: ReturnType<typeof prepareMemberLookup> } = {}
+
 /**
  * The one gate for shop-scoped routes: a non-member (or a missing shop) gets 404, so ids of
  * other shops reveal nothing; a member without one of `roles` gets 403. `personal`: the
@@ -22,14 +34,8 @@ export async function requireUserId(event: H3Event): Promise<string> {
  */
 export async function requireShopRole(event: H3Event, shopId: string, roles?: readonly Role[], opts: { personal?: boolean } = {}): Promise<ShopAccess> {
   const userId = await requireUserId(event)
-  const [row] = await useDb()
-    .select({ role: tables.memberships.role, since: tables.memberships.createdAt })
-    .from(tables.memberships)
-    .innerJoin(tables.shops, eq(tables.shops.id, tables.memberships.shopId))
-    .where(and(eq(tables.memberships.shopId, shopId), eq(tables.memberships.userId, userId), isNull(tables.shops.deletedAt),
-      // A personal space is reached only by sync (`personal`); every shop route answers 404 for it.
-      opts.personal ? undefined : eq(tables.shops.kind, 'shop')))
-    .limit(1)
+  const lookup = opts.personal ? (memberLookup.any ??= prepareMemberLookup(true)) : (memberLookup.shop ??= prepareMemberLookup(false))
+  const [row] = await lookup.execute({ shopId, userId })
   if (!row) throw createError({ statusCode: 404, message: 'Shop not found.' })
   if (roles && !roles.includes(row.role)) {
     throw createError({ statusCode: 403, message: 'Your role in this shop does not allow that.' })

@@ -1,6 +1,6 @@
 import type { H3Event } from 'h3'
 import { randomUUID } from 'node:crypto'
-import { and, eq, lt, ne } from 'drizzle-orm'
+import { and, eq, lt, ne, sql } from 'drizzle-orm'
 import { cookieSecure } from './cookie-flags'
 
 // Every session write goes through here so the cookie flags are the same on each Set-Cookie.
@@ -25,18 +25,51 @@ export async function deleteSessionRow(sid: string | undefined) {
   if (sid) await useDb().delete(tables.sessions).where(eq(tables.sessions.id, hashToken(sid)))
 }
 
+// Built once: this lookup runs on every signed-in request.
+let liveLookup: ReturnType<typeof prepareLiveLookup> | undefined
+const prepareLiveLookup = () => useDb().select({ userId: tables.sessions.userId, expiresAt: tables.sessions.expiresAt })
+  .from(tables.sessions).where(eq(tables.sessions.id, sql.placeholder('id'))).limit(1).prepare()
+
 /** Is this cookie's session still on the server? One primary-key lookup. */
 export async function sessionIsLive(userId: string, sid: string | undefined): Promise<boolean> {
   if (!sid) return false
-  const [row] = await withRetry(() => useDb().select({ userId: tables.sessions.userId, expiresAt: tables.sessions.expiresAt })
-    .from(tables.sessions).where(eq(tables.sessions.id, hashToken(sid))).limit(1))
+  liveLookup ??= prepareLiveLookup()
+  const [row] = await withRetry(() => liveLookup!.execute({ id: hashToken(sid) }))
   return !!row && row.userId === userId && row.expiresAt.getTime() > Date.now()
+}
+
+// Unsealing a cookie (two key derivations, an HMAC and a decryption) cost more than the rest of
+// a signed-in request's checks. The same sealed text always opens to the same session, so what a
+// cookie opened to is kept for a minute. Only the opening is skipped: the row in `sessions` is
+// still read on every request, so a sign-out or a password change ends the session at once.
+const OPENED_FOR_MS = 60_000
+const OPENED_MAX = 5000
+type OpenedSession = { id: string, createdAt: number, data: Record<string, unknown> }
+const opened = new Map<string, { at: number, session: OpenedSession }>()
+
+async function openSession(event: H3Event, name: string, sealed: string) {
+  const hit = opened.get(sealed)
+  const fresh = !!hit && Date.now() - hit.at < OPENED_FOR_MS
+  if (fresh) {
+    event.context.sessions ??= Object.create(null)
+    event.context.sessions![name] = structuredClone(hit!.session)
+  }
+  const session = await getUserSession(event)
+  const read = event.context.sessions?.[name] as OpenedSession | undefined
+  if (!fresh && session.user && read?.id) {
+    opened.delete(sealed)
+    if (opened.size >= OPENED_MAX) opened.delete(opened.keys().next().value!)
+    opened.set(sealed, { at: Date.now(), session: structuredClone({ id: read.id, createdAt: read.createdAt, data: read.data }) })
+  }
+  return session
 }
 
 /** The check every /api request with a session cookie passes (server/middleware/session.ts). */
 export async function dropEndedSession(event: H3Event) {
-  if (!getCookie(event, sessionName(event))) return
-  const session = await getUserSession(event)
+  const name = sessionName(event)
+  const sealed = getCookie(event, name)
+  if (!sealed) return
+  const session = await openSession(event, name, sealed)
   if (!session.user) return
   if (!(await sessionIsLive(session.user.id, session.secure?.sid))) await forgetSession(event)
 }
