@@ -4,24 +4,15 @@ import { SYNC_SCHEMA_VERSION } from '../../shared/utils/sync/protocol'
 import { computeTool, ENGINE_VERSION } from '../../shared/utils/bench'
 import { BASE, client, DEMO, login, newOwner, type Client } from './helpers/client'
 import { device } from './helpers/devices'
+import { pushFromDevice, statuses, type PushResult } from './helpers/push'
 import { sql } from './helpers/db'
 
-interface Result { id: number, status: string, reason?: string }
-const devices = new WeakMap<Client, Map<string, { clientId: string, next: number }>>()
-/** One device per person and space: its own client id and mutation numbers. */
+type Result = PushResult
 async function push(c: Client, shopId: string, changes: { name: string, args: unknown }[]): Promise<Result[]> {
-  const mine = devices.get(c) ?? new Map<string, { clientId: string, next: number }>()
-  devices.set(c, mine)
-  const d = mine.get(shopId) ?? { clientId: randomUUID(), next: 1 }
-  mine.set(shopId, d)
-  const r = await c.post('/api/sync/push', {
-    clientId: d.clientId, shopId, schemaVersion: SYNC_SCHEMA_VERSION,
-    mutations: changes.map(m => ({ id: d.next++, uuid: randomUUID(), ...m })),
-  })
+  const r = await pushFromDevice(c, shopId, changes)
   expect(r.status, JSON.stringify(r.body)).toBe(200)
   return r.body.results
 }
-const statuses = (rs: Result[]) => rs.map(r => r.status)
 
 let n = 0
 /** Someone invited to the shop with a role, signed in. */

@@ -1,25 +1,12 @@
 import { randomUUID } from 'node:crypto'
 import { describe, expect, it } from 'vitest'
 import { SYNC_SCHEMA_VERSION } from '../../shared/utils/sync/protocol'
-import { BASE, client, DEMO, login, newOwner, type Client } from './helpers/client'
+import { BASE, client, DEMO, login, newOwner } from './helpers/client'
 import { caughtMail, waitForMail } from './helpers/mail'
 import { device } from './helpers/devices'
+import { pushFromDevice, statuses } from './helpers/push'
 
-interface Result { id: number, status: string, reason?: string }
-// One device per person and space, as in the app: its own client id and mutation numbers.
-const devices = new WeakMap<Client, Map<string, { clientId: string, next: number }>>()
-async function push(c: Client, shopId: string, changes: { name: string, args: unknown }[]) {
-  const mine = devices.get(c) ?? new Map<string, { clientId: string, next: number }>()
-  devices.set(c, mine)
-  const d = mine.get(shopId) ?? { clientId: randomUUID(), next: 1 }
-  mine.set(shopId, d)
-  const r = await c.post('/api/sync/push', {
-    clientId: d.clientId, shopId, schemaVersion: SYNC_SCHEMA_VERSION,
-    mutations: changes.map(m => ({ id: d.next++, uuid: randomUUID(), ...m })),
-  })
-  return r
-}
-const statuses = (rs: Result[]) => rs.map(r => r.status)
+const push = pushFromDevice
 
 let n = 0
 /** A signed-in person with no shop at all. */
