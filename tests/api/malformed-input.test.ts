@@ -224,6 +224,8 @@ function badRequests(file: string, t: Target, s: Fx): fc.Arbitrary<Bad> {
     const junk = rawJunk.filter(v => !t.emptyOk || !parsesToObject(v))
     arbs.push(junk.map(v => req('not JSON', validPath, v)))
     arbs.push(fc.tuple(fc.constantFrom('text/plain', 'multipart/form-data; boundary=x', 'application/xml'), junk).map(([ct, v]) => req('content type', validPath, v, { ...headers, 'content-type': ct })))
+    // A good body under a form's content type, as a page on another site could post it.
+    if (validBody) arbs.push(fc.constantFrom('text/plain', 'text/plain;charset=UTF-8', 'application/x-www-form-urlencoded', 'multipart/form-data; boundary=x').map(ct => req('form content type', validPath, json(validBody), { ...headers, 'content-type': ct })))
   }
   if (t.raw === 'photo') {
     arbs.push(fc.uint8Array({ minLength: 1, maxLength: 2000 }).map((bytes) => {
