@@ -10,6 +10,14 @@ describe('the app shell at 360 x 800', () => {
     await page.goto(`${BASE}/jobs`)
     await hydrated(page)
     await page.waitForURL(/\/signin/)
+    // Signed out there is nothing to sync: the sync engine and its database library stay unloaded.
+    await page.waitForLoadState('networkidle')
+    const scriptsHolding = async (word: string) => {
+      const urls = await page.evaluate(() => performance.getEntriesByType('resource').map(e => e.name).filter(n => /\.js(\?|$)/.test(n)))
+      const texts = await Promise.all([...new Set(urls)].map(async u => (await fetch(u)).text()))
+      return texts.filter(t => t.includes(word)).length
+    }
+    expect(await scriptsHolding('Dexie')).toBe(0)
     await page.getByLabel('E-mail').fill('tech@larkspur.example')
     await page.getByLabel('Password').fill(DEMO_PASSWORD)
     await page.getByRole('button', { name: 'Sign in' }).click()
@@ -18,6 +26,7 @@ describe('the app shell at 360 x 800', () => {
     for (const label of ['Bench', 'Procedures', 'Jobs', 'Rigs', 'More']) {
       await nav.getByRole('link', { name: label }).waitFor()
     }
+    await expect.poll(() => scriptsHolding('Dexie')).toBeGreaterThan(0)
     // The header names the active shop: as text, or as the switcher's choice when the tech has more
     // than one shop (other suites give the demo tech a shop of their own).
     const shopShown = await page.locator('header').evaluate((h) => {
