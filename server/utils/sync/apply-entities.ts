@@ -40,6 +40,7 @@ export async function entityCreate(ctx: ApplyContext, table: EntityTable, args: 
   const next = { ...fields, id: args.id }
   await policy.check?.(ctx, next)
   const stamp = stampFor(ctx)
+  // The only write before `after`, once every check has passed (see needsSavepoint).
   await ctx.tx.insert(t).values({
     ...fields, id: args.id, shopId: ctx.shopId, version: ctx.version, createdBy: ctx.userId, updatedBy: ctx.userId,
     createdAt: ctx.now, updatedAt: ctx.now, fieldStamps: Object.fromEntries(Object.keys(fields).map(k => [k, stamp])),
