@@ -1,10 +1,12 @@
 import { createHash } from 'node:crypto'
 import { and, eq, inArray, sql } from 'drizzle-orm'
 import { canonicalJson, isMutationName, MUTATION_ARGS, SYNC_SCHEMA_VERSION, type Mutation, type MutationName, type MutationResult, type PushBody, type PushReply } from '#shared/utils/sync/protocol'
+import { entityOf } from '#shared/utils/sync/entities'
 import type { Role } from '#shared/utils/roles'
 import { Rejection, type ApplyContext, type ApplyOutcome } from './context'
 import type { Tx } from '../db'
 import { APPLY, needsSavepoint } from './apply'
+import { CreateIds } from './create-ids'
 
 export const payloadHash = (m: Mutation) => createHash('sha256').update(canonicalJson({ uuid: m.uuid, name: m.name, args: m.args, baseVersion: m.baseVersion ?? null })).digest('hex')
 
@@ -63,6 +65,7 @@ async function applyBatch(access: Access, clientId: string, mutations: Mutation[
     const startLmid = lmid
     // Entries of this batch join these as they are made: nothing in between reads the log table.
     const { byNumber: logged, uuids: takenUuids } = await loggedBefore(tx, clientId, lmid, mutations)
+    const createIds = CreateIds.of(mutations.filter(m => m.id > startLmid))
     const log: LogRow[] = []
     const results: MutationResult[] = []
     for (const m of mutations) {
@@ -79,8 +82,11 @@ async function applyBatch(access: Access, clientId: string, mutations: Mutation[
       if (takenUuids.has(uuidKey(m.uuid))) throw createError({ statusCode: 422, message: `Mutation ${m.uuid} was already applied under another number.` })
 
       const next = version + 1
-      const outcome = await applyOne(tx, { ...access, clientId, version: next, mutationUuid: m.uuid, baseVersion: m.baseVersion }, m, afterCommit)
-      if (outcome.touched) version = next
+      const outcome = await applyOne(tx, { ...access, clientId, version: next, mutationUuid: m.uuid, baseVersion: m.baseVersion, createIds }, m, afterCommit)
+      if (outcome.touched) {
+        version = next
+        rememberWrites(createIds, m)
+      }
       const entry: LogRow = {
         clientId, mutationId: m.id, uuid: m.uuid, name: m.name, payloadHash: hash, status: outcome.status,
         reason: outcome.reason?.slice(0, 500) ?? null, version: outcome.touched ? next : null, userId: access.userId,
@@ -99,6 +105,13 @@ async function applyBatch(access: Access, clientId: string, mutations: Mutation[
   // Only mutations applied by this push queue work: a duplicate is skipped above, so it sends nothing.
   runAfterCommit(afterCommit)
   return results
+}
+
+/** What an applied mutation wrote, for the later creates' id checks. */
+function rememberWrites(createIds: CreateIds, m: Mutation) {
+  const entity = entityOf(m.name)
+  if (entity?.verb === 'create') createIds.created(entity.table, (m.args as { id: string }).id)
+  if (needsSavepoint(m.name as MutationName)) createIds.forgetFree()
 }
 
 /** One mutation's outcome; a rejection is an outcome, and its after-commit work is dropped. */
