@@ -1,4 +1,4 @@
-import { randomUUID } from 'node:crypto'
+import { createHash, randomUUID } from 'node:crypto'
 import { describe, expect, it } from 'vitest'
 import { SYNC_SCHEMA_VERSION } from '../../shared/utils/sync/protocol'
 import { setSpread } from '../../shared/utils/bench/set-spread'
@@ -195,6 +195,27 @@ describe('fitting a set to a job', () => {
     await d.engine.pull()
     expect((await d.db.jobParts.where('jobId').equals(jobA!.id).toArray()).map(p => p.description)).toContain(`Matched pair 6L6GC, set ${pair.label}`)
     expect((await d.db.matchedSets.get(pair.setId))?.status).toBe('fitted')
+  })
+
+  it('in the push that fits the set, a part made with the set\'s part id after the fit is refused; one made before and one after are taken', async () => {
+    const tech = pusher(await login(DEMO.tech))
+    const pair = pairOf([42, 43])
+    const [job] = await openJob()
+    // The server names a fitted set's part from the set's id, so a device could send the same id.
+    const h = createHash('sha256').update(`matched-set-part:${pair.setId}`).digest('hex')
+    const setPart = `${h.slice(0, 8)}-${h.slice(8, 12)}-5${h.slice(13, 16)}-a${h.slice(17, 20)}-${h.slice(20, 32)}`
+    const [before, after] = [randomUUID(), randomUUID()]
+    const part = (id: string) => ({ name: 'jobPart.create', args: { id, jobId: job!.id, description: 'Fuse, 2 A slow', quantity: 1, unitPriceCents: 150 } })
+    const fit = { name: 'matchedSet.setFields', args: { id: pair.setId, fields: { status: 'fitted', fittedJobId: job!.id, fittedAt: new Date().toISOString() } } }
+    const rs = await tech.push([...pair.changes, part(before), fit, part(setPart), part(after)])
+    expect(rs.slice(4)).toEqual([
+      { id: 5, status: 'applied' }, { id: 6, status: 'applied' },
+      { id: 7, status: 'rejected', reason: 'a record with this id already exists' }, { id: 8, status: 'applied' },
+    ])
+    const parts = await sql('select id, description from job_parts where id in (?, ?, ?)', [before, setPart, after])
+    expect(parts.map(p => [p.id, p.description]).sort()).toEqual([
+      [before, 'Fuse, 2 A slow'], [setPart, `Matched pair 6L6GC, set ${pair.label}`], [after, 'Fuse, 2 A slow'],
+    ].sort())
   })
 
   it('by REST: priced from the lots\' cost when no price is given; a second fit is 400 and the desk 403', async () => {

@@ -28,6 +28,14 @@ async function lock(ctx: ApplyContext, table: EntityTable, id: string, verb: Ver
 /** What a record held, for the side of a conflict that kept it. */
 const fieldsOf = (table: EntityTable, row: Record<string, unknown>) => Object.fromEntries(Object.keys(ENTITY_FIELDS[table].shape).map(k => [k, row[k]]))
 
+/** Whether a record of this kind has the id already, in any shop. */
+async function idTaken(ctx: ApplyContext, table: EntityTable, id: string) {
+  if (ctx.createIds) return ctx.createIds.isTaken(ctx.tx, table, id)
+  const t = ENTITY_POLICIES[table].table
+  const [existing] = await ctx.tx.select({ id: t.id }).from(t).where(eq(t.id, id))
+  return !!existing
+}
+
 export async function entityCreate(ctx: ApplyContext, table: EntityTable, args: { id: string } & Record<string, unknown>): Promise<ApplyOutcome> {
   const policy = ENTITY_POLICIES[table]
   allowed(ctx, table, 'create')
@@ -35,11 +43,11 @@ export async function entityCreate(ctx: ApplyContext, table: EntityTable, args: 
   if (!parsed.success) reject(zodMessage(parsed.error))
   const fields = policy.normalise ? policy.normalise(parsed.data as Record<string, unknown>) : parsed.data as Record<string, unknown>
   const t = policy.table
-  const [existing] = await ctx.tx.select({ id: t.id }).from(t).where(eq(t.id, args.id))
-  if (existing) reject('a record with this id already exists')
+  if (await idTaken(ctx, table, args.id)) reject('a record with this id already exists')
   const next = { ...fields, id: args.id }
   await policy.check?.(ctx, next)
   const stamp = stampFor(ctx)
+  // The only write before `after`, once every check has passed (see needsSavepoint).
   await ctx.tx.insert(t).values({
     ...fields, id: args.id, shopId: ctx.shopId, version: ctx.version, createdBy: ctx.userId, updatedBy: ctx.userId,
     createdAt: ctx.now, updatedAt: ctx.now, fieldStamps: Object.fromEntries(Object.keys(fields).map(k => [k, stamp])),

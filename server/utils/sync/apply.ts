@@ -1,8 +1,9 @@
 import { and, eq } from 'drizzle-orm'
-import type { MutationArgs } from '#shared/utils/sync/protocol'
-import { ENTITY_PREFIX, ENTITY_TABLES, INSERT_ONLY, type EntityTable } from '#shared/utils/sync/entities'
+import type { MutationArgs, MutationName } from '#shared/utils/sync/protocol'
+import { ENTITY_PREFIX, ENTITY_TABLES, entityOf, INSERT_ONLY, type EntityTable } from '#shared/utils/sync/entities'
 import { isStaff, reject, type ApplyContext, type ApplyOutcome, type ApplyTable } from './context'
 import { entityCreate, entityDelete, entityRestore, entitySetFields, resolveEntityField } from './apply-entities'
+import { ENTITY_POLICIES } from './entity-policies'
 
 async function conflictResolve(ctx: ApplyContext, a: MutationArgs<'conflict.resolve'>): Promise<ApplyOutcome> {
   const [c] = await ctx.tx.select().from(tables.syncConflicts)
@@ -33,3 +34,13 @@ function entityAppliers() {
 /* eslint-enable @typescript-eslint/no-explicit-any */
 
 export const APPLY: ApplyTable = { ...entityAppliers(), 'conflict.resolve': conflictResolve }
+
+/**
+ * Whether a mutation runs in a savepoint, so that a rejection leaves nothing of it behind. A
+ * create whose policy has no `after` hook needs none: entityCreate makes its one insert after
+ * every check (checks only read), so once it has written it can no longer be rejected.
+ */
+export function needsSavepoint(name: MutationName) {
+  const entity = entityOf(name)
+  return !(entity?.verb === 'create' && !ENTITY_POLICIES[entity.table].after)
+}

@@ -1,6 +1,7 @@
 import type { MutationArgs, MutationName } from '#shared/utils/sync/protocol'
 import { STAFF_ROLES, type Role } from '#shared/utils/roles'
 import type { Tx } from '../db'
+import type { CreateIds } from './create-ids'
 
 export interface ApplyContext {
   tx: Tx
@@ -15,6 +16,8 @@ export interface ApplyContext {
   now: Date
   /** Work to do once the transaction has committed (e-mail); dropped if the mutation is rejected. */
   afterCommit: (() => Promise<unknown>)[]
+  /** A push's creates, whose ids it looks up together (a REST edit looks its one id up itself). */
+  createIds?: CreateIds
 }
 
 export type ApplyOutcome =

@@ -24,7 +24,7 @@ export interface EntityPolicy {
   normalise?: (fields: Record<string, unknown>) => Record<string, unknown>
   /** Refuse an edit outright, before conflicts are weighed (`fields` as sent, `row` as stored). */
   guard?: (ctx: ApplyContext, fields: Record<string, unknown>, row: Row) => void
-  /** Refuse a record that points at something outside this shop. */
+  /** Refuse a record that points at something outside this shop. Reads only: see needsSavepoint. */
   check?: (ctx: ApplyContext, next: Record<string, unknown>, before?: Row) => Promise<void>
   /** Refuse a delete (a set fitted to a job); `row` as stored. */
   beforeDelete?: (ctx: ApplyContext, row: Row) => void | Promise<void>

@@ -1,9 +1,12 @@
 import { createHash } from 'node:crypto'
-import { and, eq, sql } from 'drizzle-orm'
-import { canonicalJson, isMutationName, MUTATION_ARGS, SYNC_SCHEMA_VERSION, type Mutation, type MutationResult, type PushBody, type PushReply } from '#shared/utils/sync/protocol'
+import { and, eq, inArray, sql } from 'drizzle-orm'
+import { canonicalJson, isMutationName, MUTATION_ARGS, SYNC_SCHEMA_VERSION, type Mutation, type MutationName, type MutationResult, type PushBody, type PushReply } from '#shared/utils/sync/protocol'
+import { entityOf } from '#shared/utils/sync/entities'
 import type { Role } from '#shared/utils/roles'
 import { Rejection, type ApplyContext, type ApplyOutcome } from './context'
-import { APPLY } from './apply'
+import type { Tx } from '../db'
+import { APPLY, needsSavepoint } from './apply'
+import { CreateIds } from './create-ids'
 
 export const payloadHash = (m: Mutation) => createHash('sha256').update(canonicalJson({ uuid: m.uuid, name: m.name, args: m.args, baseVersion: m.baseVersion ?? null })).digest('hex')
 
@@ -19,10 +22,35 @@ export async function registerClient(clientId: string, userId: string, shopId: s
 }
 
 type Access = { userId: string, shopId: string, role: Role }
+type LogRow = typeof tables.syncMutations.$inferInsert
+type Logged = Pick<LogRow, 'payloadHash' | 'status' | 'reason'>
+
+// The uuid column compares without case, so the batch's own checks do too.
+const uuidKey = (uuid: string) => uuid.toLowerCase()
+
+/**
+ * What the log held before this push, read once for the whole batch: this client's entries for
+ * the numbers it may resend (up to lmid), and which of the batch's other uuids are taken.
+ */
+async function loggedBefore(tx: Tx, clientId: string, lmid: number, mutations: Mutation[]) {
+  const t = tables.syncMutations
+  const numbers = [...new Set(mutations.filter(m => m.id <= lmid).map(m => m.id))]
+  const uuids = [...new Set(mutations.filter(m => m.id > lmid).map(m => m.uuid))]
+  const rows = numbers.length
+    ? await tx.select({ mutationId: t.mutationId, payloadHash: t.payloadHash, status: t.status, reason: t.reason }).from(t)
+      .where(and(eq(t.clientId, clientId), inArray(t.mutationId, numbers)))
+    : []
+  const taken = uuids.length ? await tx.select({ uuid: t.uuid }).from(t).where(inArray(t.uuid, uuids)) : []
+  return {
+    byNumber: new Map<number, Logged>(rows.map(r => [r.mutationId, r])),
+    uuids: new Set(taken.map(r => uuidKey(r.uuid))),
+  }
+}
 
 /**
  * One transaction per push: the client row and then the shop's version row are locked (always
- * in that order), every mutation is applied with its log entry, and lmid advances with them.
+ * in that order), every mutation is applied, its log entry is written with the others', and lmid
+ * advances with them.
  */
 async function applyBatch(access: Access, clientId: string, mutations: Mutation[]): Promise<MutationResult[]> {
   let afterCommit: (() => Promise<unknown>)[] = []
@@ -35,49 +63,41 @@ async function applyBatch(access: Access, clientId: string, mutations: Mutation[
     let version = await lockShopVersion(tx, access.shopId)
     const startVersion = version
     const startLmid = lmid
+    // Entries of this batch join these as they are made: nothing in between reads the log table.
+    const { byNumber: logged, uuids: takenUuids } = await loggedBefore(tx, clientId, lmid, mutations)
+    const createIds = CreateIds.of(mutations.filter(m => m.id > startLmid))
+    const log: LogRow[] = []
     const results: MutationResult[] = []
     for (const m of mutations) {
       const hash = payloadHash(m)
       if (m.id <= lmid) {
-        const [logged] = await tx.select().from(tables.syncMutations)
-          .where(and(eq(tables.syncMutations.clientId, clientId), eq(tables.syncMutations.mutationId, m.id)))
-        if (logged && logged.payloadHash !== hash) {
+        const entry = logged.get(m.id)
+        if (entry && entry.payloadHash !== hash) {
           throw createError({ statusCode: 422, message: `Mutation ${m.id} was already used for a different change.` })
         }
-        results.push({ id: m.id, status: 'duplicate', was: logged?.status ?? 'applied', ...(logged?.reason ? { reason: logged.reason } : {}) })
+        results.push({ id: m.id, status: 'duplicate', was: entry?.status ?? 'applied', ...(entry?.reason ? { reason: entry.reason } : {}) })
         continue
       }
       if (m.id > lmid + 1) break
-      const [sameUuid] = await tx.select({ clientId: tables.syncMutations.clientId }).from(tables.syncMutations).where(eq(tables.syncMutations.uuid, m.uuid))
-      if (sameUuid) throw createError({ statusCode: 422, message: `Mutation ${m.uuid} was already applied under another number.` })
+      if (takenUuids.has(uuidKey(m.uuid))) throw createError({ statusCode: 422, message: `Mutation ${m.uuid} was already applied under another number.` })
 
       const next = version + 1
-      let outcome: ApplyOutcome
-      const parsed = MUTATION_ARGS[m.name as keyof typeof MUTATION_ARGS].safeParse(m.args)
-      if (!parsed.success) {
-        outcome = { status: 'rejected', touched: false, reason: zodMessage(parsed.error) }
+      const outcome = await applyOne(tx, { ...access, clientId, version: next, mutationUuid: m.uuid, baseVersion: m.baseVersion, createIds }, m, afterCommit)
+      if (outcome.touched) {
+        version = next
+        rememberWrites(createIds, m)
       }
-      else {
-        try {
-          const apply = APPLY[m.name as keyof typeof APPLY] as (ctx: ApplyContext, args: unknown) => Promise<ApplyOutcome>
-          const queued: (() => Promise<unknown>)[] = []
-          // A savepoint, so a rejected mutation leaves nothing behind but its log entry.
-          outcome = await tx.transaction(inner => apply({ tx: inner, ...access, clientId, version: next, mutationUuid: m.uuid, baseVersion: m.baseVersion, now: new Date(), afterCommit: queued }, parsed.data))
-          afterCommit.push(...queued)
-        }
-        catch (error) {
-          if (!(error instanceof Rejection)) throw error
-          outcome = { status: 'rejected', touched: false, reason: error.message }
-        }
-      }
-      if (outcome.touched) version = next
-      await tx.insert(tables.syncMutations).values({
+      const entry: LogRow = {
         clientId, mutationId: m.id, uuid: m.uuid, name: m.name, payloadHash: hash, status: outcome.status,
         reason: outcome.reason?.slice(0, 500) ?? null, version: outcome.touched ? next : null, userId: access.userId,
-      })
+      }
+      log.push(entry)
+      logged.set(m.id, entry)
+      takenUuids.add(uuidKey(m.uuid))
       lmid = m.id
       results.push({ id: m.id, status: outcome.status, ...(outcome.reason ? { reason: outcome.reason } : {}) })
     }
+    if (log.length) await tx.insert(tables.syncMutations).values(log)
     if (version !== startVersion) await bumpShopVersion(tx, access.shopId, version)
     if (lmid !== startLmid) await tx.update(tables.syncClients).set({ lmid, lastSeenAt: sql`CURRENT_TIMESTAMP(3)` }).where(eq(tables.syncClients.id, clientId))
     return results
@@ -85,6 +105,32 @@ async function applyBatch(access: Access, clientId: string, mutations: Mutation[
   // Only mutations applied by this push queue work: a duplicate is skipped above, so it sends nothing.
   runAfterCommit(afterCommit)
   return results
+}
+
+/** What an applied mutation wrote, for the later creates' id checks. */
+function rememberWrites(createIds: CreateIds, m: Mutation) {
+  const entity = entityOf(m.name)
+  if (entity?.verb === 'create') createIds.created(entity.table, (m.args as { id: string }).id)
+  if (needsSavepoint(m.name as MutationName)) createIds.forgetFree()
+}
+
+/** One mutation's outcome; a rejection is an outcome, and its after-commit work is dropped. */
+async function applyOne(tx: Tx, base: Omit<ApplyContext, 'tx' | 'now' | 'afterCommit'>, m: Mutation, afterCommit: (() => Promise<unknown>)[]): Promise<ApplyOutcome> {
+  const parsed = MUTATION_ARGS[m.name as keyof typeof MUTATION_ARGS].safeParse(m.args)
+  if (!parsed.success) return { status: 'rejected', touched: false, reason: zodMessage(parsed.error) }
+  const apply = APPLY[m.name as keyof typeof APPLY] as (ctx: ApplyContext, args: unknown) => Promise<ApplyOutcome>
+  const queued: (() => Promise<unknown>)[] = []
+  const run = (t: Tx) => apply({ ...base, tx: t, now: new Date(), afterCommit: queued }, parsed.data)
+  try {
+    // A savepoint, so a rejected mutation leaves nothing behind but its log entry.
+    const outcome = needsSavepoint(m.name as MutationName) ? await tx.transaction(run) : await run(tx)
+    afterCommit.push(...queued)
+    return outcome
+  }
+  catch (error) {
+    if (!(error instanceof Rejection)) throw error
+    return { status: 'rejected', touched: false, reason: error.message }
+  }
 }
 
 export async function handlePush(access: Access, body: PushBody): Promise<PushReply> {
