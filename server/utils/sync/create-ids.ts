@@ -26,7 +26,7 @@ export class CreateIds {
       const entity = entityOf(m.name)
       const id = (m.args as { id?: unknown } | null)?.id
       if (entity?.verb !== 'create' || typeof id !== 'string') continue
-      wanted.set(entity.table, [...(wanted.get(entity.table) ?? []), id])
+      wanted.set(entity.table, wanted.get(entity.table) ?? []).get(entity.table)!.push(id)
     }
     return new CreateIds(wanted)
   }
