@@ -27,13 +27,17 @@ try {
   const cookie = owner.cookie
 
   if (only.includes('size') && bare) {
-    console.log('\nFirst load, JS + CSS the first screen waits for (gzip), phone viewport, cold cache')
+    console.log('\nFirst load, JS + CSS the first screen waits for (gzip), phone viewport, cold cache (median of 3)')
     const browser = await launch()
     try {
       const ref = await firstLoad(browser, bare.url, '/')
       record({ group: 'size', what: 'bare Nuxt page with the PWA module (reference)', value: `${kb(ref.firstScreen)} in ${ref.files} files`, budget: 'none', pass: null })
       for (const [path, signedIn] of [['/signin', false], ['/', true], ['/jobs', true]] as const) {
-        const f = await firstLoad(browser, app, path, signedIn ? cookie : undefined)
+        // A file counts when it finished before the heading showed, which races with the chunks
+        // that load after the first screen: the median of three loads.
+        const loads = []
+        for (let i = 0; i < 3; i++) loads.push(await firstLoad(browser, app, path, signedIn ? cookie : undefined))
+        const f = loads.sort((a, b) => a.firstScreen - b.firstScreen)[1]!
         const ratio = f.firstScreen / ref.firstScreen
         record({
           group: 'size',
