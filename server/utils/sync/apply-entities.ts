@@ -47,11 +47,13 @@ export async function entityCreate(ctx: ApplyContext, table: EntityTable, args: 
   const next = { ...fields, id: args.id }
   await policy.check?.(ctx, next)
   const stamp = stampFor(ctx)
-  // The only write before `after`, once every check has passed (see needsSavepoint).
-  await ctx.tx.insert(t).values({
+  const row = {
     ...fields, id: args.id, shopId: ctx.shopId, version: ctx.version, createdBy: ctx.userId, updatedBy: ctx.userId,
     createdAt: ctx.now, updatedAt: ctx.now, fieldStamps: Object.fromEntries(Object.keys(fields).map(k => [k, stamp])),
-  })
+  }
+  // The only write before `after`, once every check has passed (see needsSavepoint).
+  if (ctx.held && policy.insertsTogether && !policy.after) await ctx.held.hold(ctx.tx, table, row)
+  else await ctx.tx.insert(t).values(row)
   await policy.after?.(ctx, next)
   return { status: 'applied', touched: true }
 }

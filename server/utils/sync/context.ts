@@ -2,6 +2,7 @@ import type { MutationArgs, MutationName } from '#shared/utils/sync/protocol'
 import { STAFF_ROLES, type Role } from '#shared/utils/roles'
 import type { Tx } from '../db'
 import type { CreateIds } from './create-ids'
+import type { HeldInserts } from './held-inserts'
 
 export interface ApplyContext {
   tx: Tx
@@ -18,6 +19,8 @@ export interface ApplyContext {
   afterCommit: (() => Promise<unknown>)[]
   /** A push's creates, whose ids it looks up together (a REST edit looks its one id up itself). */
   createIds?: CreateIds
+  /** A push's run of creates of one table, inserted together (a REST edit inserts at once). */
+  held?: HeldInserts
 }
 
 export type ApplyOutcome =

@@ -30,6 +30,11 @@ export interface EntityPolicy {
   beforeDelete?: (ctx: ApplyContext, row: Row) => void | Promise<void>
   /** Rows the server writes alongside (the job timeline). */
   after?: (ctx: ApplyContext, next: Record<string, unknown>, before?: Row) => Promise<void>
+  /**
+   * Creates of this table that follow each other in one push may be inserted together: its
+   * `check` reads no row of this table, so a row still waiting to be written cannot change it.
+   */
+  insertsTogether?: true
 }
 
 /**
@@ -155,10 +160,12 @@ async function checkRun(ctx: ApplyContext, next: Record<string, unknown>, previo
 export const ENTITY_POLICIES: Record<EntityTable, EntityPolicy> = {
   customers: {
     table: tables.customers,
+    insertsTogether: true,
     check: (ctx, next) => mustBeMember(ctx, next.playerUserId, 'the linked player', ['player']),
   },
   amps: {
     table: tables.amps,
+    insertsTogether: true,
     async check(ctx, next, before) {
       await mustExist(ctx, 'customers', next.customerId, 'customer')
       if (next.rigId && next.rigId !== before?.rigId) await mustBeSharedRig(ctx, next.rigId)
@@ -191,10 +198,12 @@ export const ENTITY_POLICIES: Record<EntityTable, EntityPolicy> = {
   },
   jobParts: {
     table: tables.jobParts,
+    insertsTogether: true,
     check: (ctx, next) => mustExist(ctx, 'jobs', next.jobId, 'job'),
   },
   jobLabour: {
     table: tables.jobLabour,
+    insertsTogether: true,
     async check(ctx, next) {
       await mustExist(ctx, 'jobs', next.jobId, 'job')
       await mustBeMember(ctx, next.techId, 'the tech', ['owner', 'tech'])
@@ -203,12 +212,14 @@ export const ENTITY_POLICIES: Record<EntityTable, EntityPolicy> = {
   ...STOCK_POLICIES,
   notes: {
     table: tables.notes,
+    insertsTogether: true,
     ownReason: 'players may change only their own notes',
     // The job is fixed when the note is written.
     check: (ctx, next, before) => (before ? Promise.resolve() : mustExist(ctx, 'jobs', next.jobId, 'job')),
   },
   measurements: {
     table: tables.measurements,
+    insertsTogether: true,
     ownReason: 'only its author or the owner may delete a measurement',
     normalise: checkSavedResult,
     async check(ctx, next) {
@@ -237,6 +248,7 @@ export const ENTITY_POLICIES: Record<EntityTable, EntityPolicy> = {
   },
   rigTubeSets: {
     table: tables.rigTubeSets,
+    insertsTogether: true,
     async check(ctx, next) {
       await mustBePersonal(ctx)
       await mustExist(ctx, 'rigs', next.rigId, 'rig')
@@ -244,6 +256,7 @@ export const ENTITY_POLICIES: Record<EntityTable, EntityPolicy> = {
   },
   rigGigs: {
     table: tables.rigGigs,
+    insertsTogether: true,
     async check(ctx, next) {
       await mustBePersonal(ctx)
       await mustExist(ctx, 'rigs', next.rigId, 'rig')

@@ -7,6 +7,7 @@ import { Rejection, type ApplyContext, type ApplyOutcome } from './context'
 import type { Tx } from '../db'
 import { APPLY, needsSavepoint } from './apply'
 import { CreateIds } from './create-ids'
+import { HeldInserts } from './held-inserts'
 
 export const payloadHash = (m: Mutation) => createHash('sha256').update(canonicalJson({ uuid: m.uuid, name: m.name, args: m.args, baseVersion: m.baseVersion ?? null })).digest('hex')
 
@@ -66,6 +67,7 @@ async function applyBatch(access: Access, clientId: string, mutations: Mutation[
     // Entries of this batch join these as they are made: nothing in between reads the log table.
     const { byNumber: logged, uuids: takenUuids } = await loggedBefore(tx, clientId, lmid, mutations)
     const createIds = CreateIds.of(mutations.filter(m => m.id > startLmid))
+    const held = new HeldInserts()
     const log: LogRow[] = []
     const results: MutationResult[] = []
     for (const m of mutations) {
@@ -82,7 +84,8 @@ async function applyBatch(access: Access, clientId: string, mutations: Mutation[
       if (takenUuids.has(uuidKey(m.uuid))) throw createError({ statusCode: 422, message: `Mutation ${m.uuid} was already applied under another number.` })
 
       const next = version + 1
-      const outcome = await applyOne(tx, { ...access, clientId, version: next, mutationUuid: m.uuid, baseVersion: m.baseVersion, createIds }, m, afterCommit)
+      if (!held.canWaitFor(m.name as MutationName)) await held.write(tx)
+      const outcome = await applyOne(tx, { ...access, clientId, version: next, mutationUuid: m.uuid, baseVersion: m.baseVersion, createIds, held }, m, afterCommit)
       if (outcome.touched) {
         version = next
         rememberWrites(createIds, m)
@@ -97,6 +100,7 @@ async function applyBatch(access: Access, clientId: string, mutations: Mutation[
       lmid = m.id
       results.push({ id: m.id, status: outcome.status, ...(outcome.reason ? { reason: outcome.reason } : {}) })
     }
+    await held.write(tx)
     if (log.length) await tx.insert(tables.syncMutations).values(log)
     if (version !== startVersion) await bumpShopVersion(tx, access.shopId, version)
     if (lmid !== startLmid) await tx.update(tables.syncClients).set({ lmid, lastSeenAt: sql`CURRENT_TIMESTAMP(3)` }).where(eq(tables.syncClients.id, clientId))

@@ -1,0 +1,44 @@
+import type { EntityTable } from '#shared/utils/sync/entities'
+import { entityOf } from '#shared/utils/sync/entities'
+import type { MutationName } from '#shared/utils/sync/protocol'
+import type { Tx } from '../db'
+import { ENTITY_POLICIES } from './entity-policies'
+
+const MAX_HELD = 250
+
+/** A create whose row may wait to be inserted with the next ones of its table (see `insertsTogether`). */
+export function mayHold(name: MutationName): EntityTable | null {
+  const entity = entityOf(name)
+  if (entity?.verb !== 'create') return null
+  const policy = ENTITY_POLICIES[entity.table]
+  return policy.insertsTogether && !policy.after ? entity.table : null
+}
+
+/**
+ * The rows of a run of creates of one table inside a push, written with one multi-row insert.
+ * The push writes them before any other kind of mutation applies and at the end, so no check
+ * or edit ever looks for a row that is still held.
+ */
+export class HeldInserts {
+  private table: EntityTable | null = null
+  private rows: Record<string, unknown>[] = []
+
+  /** May a mutation of this name apply while the rows held now are still unwritten? */
+  canWaitFor(name: MutationName) {
+    const table = mayHold(name)
+    return table !== null && (this.table === null || this.table === table)
+  }
+
+  async hold(tx: Tx, table: EntityTable, row: Record<string, unknown>) {
+    if (this.table !== table) await this.write(tx)
+    this.table = table
+    this.rows.push(row)
+    if (this.rows.length >= MAX_HELD) await this.write(tx)
+  }
+
+  async write(tx: Tx) {
+    if (this.table && this.rows.length) await tx.insert(ENTITY_POLICIES[this.table].table).values(this.rows)
+    this.table = null
+    this.rows = []
+  }
+}
