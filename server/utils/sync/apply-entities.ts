@@ -5,6 +5,7 @@ import type { FieldStamps } from '../../db/schema/columns'
 import { reject, type ApplyContext, type ApplyOutcome } from './context'
 import { changedByOthers, recordConflict, stampFor } from './conflicts'
 import { ENTITY_POLICIES } from './entity-policies'
+import { holdsTogether } from './held-inserts'
 
 const WORDS: Record<Verb, string> = { read: 'read', create: 'create', update: 'change', remove: 'delete', pay: 'pay' }
 
@@ -52,7 +53,7 @@ export async function entityCreate(ctx: ApplyContext, table: EntityTable, args: 
     createdAt: ctx.now, updatedAt: ctx.now, fieldStamps: Object.fromEntries(Object.keys(fields).map(k => [k, stamp])),
   }
   // The only write before `after`, once every check has passed (see needsSavepoint).
-  if (ctx.held && policy.insertsTogether && !policy.after) await ctx.held.hold(ctx.tx, table, row)
+  if (ctx.held && holdsTogether(table)) await ctx.held.hold(ctx.tx, table, row)
   else await ctx.tx.insert(t).values(row)
   await policy.after?.(ctx, next)
   return { status: 'applied', touched: true }

@@ -6,12 +6,16 @@ import { ENTITY_POLICIES } from './entity-policies'
 
 const MAX_HELD = 250
 
-/** A create whose row may wait to be inserted with the next ones of its table (see `insertsTogether`). */
-export function mayHold(name: MutationName): EntityTable | null {
+/** Creates of this table may wait to be inserted with the next ones (see `insertsTogether`). */
+export function holdsTogether(table: EntityTable) {
+  const policy = ENTITY_POLICIES[table]
+  return !!policy.insertsTogether && !policy.after
+}
+
+/** The table of a create whose row may wait, or null. */
+function mayHold(name: MutationName): EntityTable | null {
   const entity = entityOf(name)
-  if (entity?.verb !== 'create') return null
-  const policy = ENTITY_POLICIES[entity.table]
-  return policy.insertsTogether && !policy.after ? entity.table : null
+  return entity?.verb === 'create' && holdsTogether(entity.table) ? entity.table : null
 }
 
 /**
