@@ -3,6 +3,7 @@ import { beforeAll, describe, expect, it } from 'vitest'
 import { SYNC_SCHEMA_VERSION } from '../../shared/utils/sync/protocol'
 import { client, DEMO, login, newOwner, type Client } from './helpers/client'
 import { sql } from './helpers/db'
+import { pushFromDevice, statuses } from './helpers/push'
 
 let owner: Client, tech: Client, desk: Client, dana: Client, sam: Client
 let other: Awaited<ReturnType<typeof newOwner>>
@@ -131,6 +132,25 @@ describe('jobs over REST', () => {
     expect(p1.body.items.map((j: { id: string }) => j.id)).not.toContain(p2.body.items[0].id)
     const sum = Object.values(p1.body.counts as Record<string, number>).reduce((s, n) => s + n, 0)
     expect(sum).toBe(p1.body.total)
+  })
+
+  it('the same list asked again shows every change made in between, over REST or from a device', async () => {
+    const { t, customer, job } = await checkIn()
+    const list = async () => (await tech.get(`/api/jobs?q=${encodeURIComponent(`idle ${t}`)}&sort=promisedFor&dir=asc`)).body
+    expect((await list()).items).toMatchObject([{ id: job.id, status: 'checked-in', customerName: customer.name }])
+    expect(await list()).toEqual(await list())
+
+    await tech.patch(`/api/jobs/${job.id}`, { status: 'on-bench' })
+    expect((await list()).items[0].status).toBe('on-bench')
+    // A change to another record the row shows: the customer's name.
+    await desk.patch(`/api/customers/${customer.id}`, { name: `Renamed ${t}` })
+    expect((await list()).items[0].customerName).toBe(`Renamed ${t}`)
+    const fresh = (await tech.get(`/api/jobs/${job.id}`)).body
+    const pushed = await pushFromDevice(tech, DEMO.shopId, [{ name: 'job.setFields', args: { id: job.id, fields: { status: 'soak' } }, baseVersion: fresh.version }])
+    expect(statuses(pushed.body.results)).toEqual(['applied'])
+    expect((await list())).toMatchObject({ total: 1, counts: { soak: 1 }, items: [{ status: 'soak' }] })
+    expect((await owner.del(`/api/jobs/${job.id}`)).status).toBe(200)
+    expect(await list()).toMatchObject({ total: 0, items: [] })
   })
 
   it('shows the seeded week of demo jobs, one in every state, and each player only their own', async () => {

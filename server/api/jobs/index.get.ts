@@ -1,10 +1,21 @@
 import { and, asc, count, desc, eq, inArray, isNull, like, or, type SQL } from 'drizzle-orm'
-import { jobListQuery } from '#shared/utils/schemas/jobs'
+import { jobListQuery, type JobListQuery } from '#shared/utils/schemas/jobs'
 import { JOB_STATES, type JobState } from '#shared/utils/jobs/states'
+
+// A shop's list is read far more often than it changes.
+const answers = new VersionedAnswers()
 
 export default defineEventHandler(async (event) => {
   const access = await requireActiveShopRole(event)
   const query = await validQuery(event, jobListQuery)
+  // Staff see the same list; a player sees only their own jobs.
+  const viewer = access.role === 'player' ? access.userId : 'staff'
+  const json = await answers.answer(access.shopId, `${viewer}\u0000${JSON.stringify(query)}`, () => listJobs(access, query))
+  setResponseHeader(event, 'content-type', 'application/json')
+  return json
+})
+
+async function listJobs(access: ShopAccess, query: JobListQuery) {
   const j = tables.jobs
   const c = tables.customers
   const a = tables.amps
@@ -42,4 +53,4 @@ export default defineEventHandler(async (event) => {
   // The total is the counts of the statuses asked for: no third query.
   const total = ((query.status ?? JOB_STATES) as readonly JobState[]).reduce((sum, s) => sum + (byStatus[s] ?? 0), 0)
   return { items, total, page: query.page, pageSize: query.pageSize, counts: byStatus }
-})
+}

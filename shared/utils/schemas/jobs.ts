@@ -28,6 +28,8 @@ export const jobListQuery = z.object({
   pageSize,
 })
 
+export type JobListQuery = z.infer<typeof jobListQuery>
+
 export const searchQuery = z.object({ q, page, pageSize })
 
 export const jobCreateBody = createBody(ENTITY_FIELDS.jobs)
