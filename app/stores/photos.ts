@@ -1,5 +1,5 @@
 import { defineStore } from 'pinia'
-import { isBlobType, MAX_BLOB_BYTES } from '#shared/utils/schemas/blobs'
+import { isBlobType, MAX_BLOB_BYTES } from '#shared/utils/blob-types'
 import type { BlobRow } from '~/utils/sync/local-db'
 import { STORAGE_KEYS } from '~/utils/storage-keys'
 import { backoffDelay } from '~/utils/sync/backoff'

@@ -1,6 +1,6 @@
 import { defineStore } from 'pinia'
 import type { MutationArgs, MutationName } from '#shared/utils/sync/protocol'
-import { ENTITY_PREFIX, ENTITY_TABLES, entityOf, isPersonalTable, type EntityTable } from '#shared/utils/sync/entities'
+import { ENTITY_PREFIX, ENTITY_TABLES, entityOf, isPersonalTable, type EntityTable } from '#shared/utils/sync/entity-names'
 import { LocalDb, localDbName, type ConflictRow, type MetaRow, type OutboxRow, type RejectionRow } from '~/utils/sync/local-db'
 import { SyncEngine, SyncHttpError, type Transport } from '~/utils/sync/engine'
 import { syncStateOf, type SyncState } from '~/utils/sync/status'

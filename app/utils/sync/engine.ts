@@ -1,6 +1,7 @@
 // The device side of sync: every change is saved locally first (outbox + optimistic view in
 // one transaction), then pushed exactly once; pulls rebase the view on the server's rows.
-import { MAX_PUSH_MUTATIONS, SYNC_SCHEMA_VERSION, type MutationArgs, type MutationName, type MutationResult, type PullReply, type PushReply, type SyncedTable } from '#shared/utils/sync/protocol'
+import { MAX_PUSH_MUTATIONS, SYNC_SCHEMA_VERSION, type MutationResult, type PullReply, type PushReply, type SyncedTable } from '#shared/utils/sync/wire'
+import type { MutationArgs, MutationName } from '#shared/utils/sync/protocol'
 import type { ConflictRow, LocalDb, MetaRow, OutboxRow, RejectionRow, ServerRow } from './local-db'
 import { VIEW_TABLES } from './local-db'
 import { key, reduce, serverToView, targetsOf, type ViewRow } from './reducers'

@@ -2,7 +2,7 @@
 import { JOB_STATE_LABELS, type JobState } from '#shared/utils/jobs/states'
 import { formatMoney } from '#shared/utils/jobs/money'
 import { findProcedure } from '#shared/utils/procedures/index'
-import { ENTITY_NOUNS } from '#shared/utils/sync/entities'
+import { ENTITY_NOUNS } from '#shared/utils/sync/entity-names'
 
 /** text: free text a person may merge; the rest are picked, never typed. */
 export type FieldKind = 'text' | 'longtext' | 'enum' | 'money' | 'number' | 'minutes' | 'date' | 'person' | 'record' | 'other'

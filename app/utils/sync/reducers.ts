@@ -2,7 +2,7 @@
 // server row becomes a view row. Pure functions, replayed on top of server rows (rebase).
 import type { SyncedTable } from '#shared/utils/sync/protocol'
 import type { ConflictRow, EntityRow, InvoiceRow, JobEventRow, OutboxRow, ServerRow } from './local-db'
-import { ENTITY_DEFAULTS, entityOf, type EntityTable } from '#shared/utils/sync/entities'
+import { ENTITY_DEFAULTS, entityOf, type EntityTable } from '#shared/utils/sync/entity-names'
 
 export type ViewRow = ConflictRow | EntityRow<EntityTable> | JobEventRow | InvoiceRow
 export const key = (table: SyncedTable, id: string) => `${table}:${id}`

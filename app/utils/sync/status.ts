@@ -1,6 +1,6 @@
 // What the person sees about sync: four states, each with its own word and shape.
 import type { MutationName } from '#shared/utils/sync/protocol'
-import { ENTITY_NOUNS, entityOf } from '#shared/utils/sync/entities'
+import { ENTITY_NOUNS, entityOf } from '#shared/utils/sync/entity-names'
 
 export type SyncState = 'local' | 'sending' | 'synced' | 'conflict'
 export type ItemSyncState = Exclude<SyncState, 'sending'>

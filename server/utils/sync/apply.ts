@@ -11,7 +11,7 @@ async function conflictResolve(ctx: ApplyContext, a: MutationArgs<'conflict.reso
   if (!c) reject('conflict not found')
   if (c!.status === 'resolved') reject('someone already decided this conflict')
   if (!isStaff(ctx.role) && c!.clientAuthor !== ctx.userId && c!.serverAuthor !== ctx.userId) reject('not your conflict')
-  if (!(ENTITY_TABLES as string[]).includes(c!.tableName)) reject('this kind of conflict cannot be resolved here')
+  if (!(ENTITY_TABLES as readonly string[]).includes(c!.tableName)) reject('this kind of conflict cannot be resolved here')
   await resolveEntityField(ctx, c!.tableName as EntityTable, c!.rowId, c!.field, a.value)
   await ctx.tx.update(tables.syncConflicts).set({
     status: 'resolved', resolution: { value: a.value }, resolvedBy: ctx.userId, resolvedAt: ctx.now, version: ctx.version,

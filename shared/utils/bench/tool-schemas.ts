@@ -1,21 +1,8 @@
 import { z } from 'zod'
 
-export const BENCH_TOOL_IDS = [
-  'idle-dissipation',
-  'cathode-resistor',
-  'bias-supply',
-  'clean-power',
-  'cap-drain',
-  'load-reflection',
-  'rc-corner',
-  'tube-sorter',
-] as const
+import type { BenchToolId } from './tool-ids'
 
-export type BenchToolId = (typeof BENCH_TOOL_IDS)[number]
-
-export function isBenchToolId(value: unknown): value is BenchToolId {
-  return typeof value === 'string' && (BENCH_TOOL_IDS as readonly string[]).includes(value)
-}
+export { BENCH_TOOL_IDS, isBenchToolId, type BenchToolId } from './tool-ids'
 
 // Messages name the field so the UI can show them beside it unchanged.
 const positive = (name: string) => {

@@ -1,11 +1,6 @@
 import { z } from 'zod'
 
-/** Photos the shop server accepts, and how large one may be. */
-export const BLOB_TYPES = ['image/jpeg', 'image/png', 'image/webp'] as const
-export type BlobType = (typeof BLOB_TYPES)[number]
-export const MAX_BLOB_BYTES = 8 * 1024 * 1024
-
-export const isBlobType = (t: string): t is BlobType => (BLOB_TYPES as readonly string[]).includes(t)
+export { BLOB_TYPES, MAX_BLOB_BYTES, isBlobType, type BlobType } from '../blob-types'
 
 export const blobParamsSchema = z.object({
   sha256: z.string().regex(/^[0-9a-f]{64}$/, { message: 'sha256 must be 64 lower-case hex digits' }),
