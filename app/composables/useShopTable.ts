@@ -1,4 +1,4 @@
-import { isPersonalTable } from '#shared/utils/sync/entities'
+import { isPersonalTable } from '#shared/utils/sync/entity-names'
 import type { LocalDb } from '~/utils/sync/local-db'
 
 type ShopTable = 'customers' | 'amps' | 'jobs' | 'jobParts' | 'jobLabour' | 'tubeLots' | 'stockTubes' | 'matchedSets' | 'jobEvents' | 'invoices' | 'notes' | 'measurements' | 'procedureGates' | 'procedureRuns' | 'rigs' | 'rigTubeSets' | 'rigGigs' | 'rigShares' | 'rigSuggestions'

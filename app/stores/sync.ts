@@ -14,6 +14,9 @@ export { readUnsentHint, type UnsentHint } from '~/utils/sync/unsent'
 export const SYNC_DEBOUNCE_MS = 800
 export const SYNC_INTERVAL_MS = 45_000
 
+interface DeviceStatus { unsent: OutboxRow[], rejected: RejectionRow[], open: ConflictRow[], meta: MetaRow | undefined }
+const NO_STATUS: DeviceStatus = { unsent: [], rejected: [], open: [], meta: undefined }
+
 const isQuotaError = (e: unknown) => {
   const err = e as { name?: string, inner?: { name?: string } } | null
   return err?.name === 'QuotaExceededError' || err?.inner?.name === 'QuotaExceededError'
@@ -51,13 +54,24 @@ export const useSyncStore = defineStore('sync', () => {
   // The active shop and the person's own space, together.
   const spaces = () => [shopId.value, personalId.value].filter((s): s is string => !!s)
   const forShop = <T>(q: (d: LocalDb, shops: string[]) => Promise<T>, empty: T) => () => (db.value && spaces().length ? q(db.value, spaces()) : empty)
-  // Changes the server has not answered yet (answered ones wait for the next pull, see engine.ts).
-  const pending = useLiveQuery(forShop((d, s) => d.outbox.where('shopId').anyOf(s).filter(m => !m.sent).count(), 0), deps, 0)
-  const pendingList = useLiveQuery(forShop(async (d, s) => (await d.outbox.where('shopId').anyOf(s).filter(m => !m.sent).toArray())
-    .sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.id - b.id).slice(0, 100), [] as OutboxRow[]), deps, [])
-  const rejections = useLiveQuery(forShop((d, s) => d.rejections.where('shopId').anyOf(s).reverse().sortBy('seq'), [] as RejectionRow[]), deps, [])
-  const conflictList = useLiveQuery(forShop((d, s) => d.conflicts.where('shopId').anyOf(s).filter(c => c.status === 'open').toArray(), [] as ConflictRow[]), deps, [])
-  const meta = useLiveQuery(forShop((d, s) => d.meta.get(s[0]!), undefined as MetaRow | undefined), deps, undefined)
+  // What the sync chip and screen show, read in one transaction: changes the server has not
+  // answered yet (answered ones wait for the next pull, see engine.ts), refusals, open conflicts
+  // and the active space's meta. One query instead of one per figure: each costs a transaction
+  // and a re-run on every change, which a slow phone feels while the first sync fills the device.
+  const status = useLiveQuery(forShop((d, s) => d.transaction('r', [d.outbox, d.rejections, d.conflicts, d.meta], async () => {
+    const [unsent, rejected, open, m] = await Promise.all([
+      d.outbox.where('shopId').anyOf(s).filter(m => !m.sent).toArray(),
+      d.rejections.where('shopId').anyOf(s).reverse().sortBy('seq'),
+      d.conflicts.where('shopId').anyOf(s).filter(c => c.status === 'open').toArray(),
+      d.meta.get(s[0]!),
+    ])
+    return { unsent, rejected, open, meta: m }
+  }), NO_STATUS), deps, NO_STATUS)
+  const pending = computed(() => status.value.unsent.length)
+  const pendingList = computed(() => [...status.value.unsent].sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.id - b.id).slice(0, 100))
+  const rejections = computed(() => status.value.rejected)
+  const conflictList = computed(() => status.value.open)
+  const meta = computed(() => status.value.meta)
 
   const conflicts = computed(() => conflictList.value.length)
   const conflictRowIds = computed(() => new Set(conflictList.value.map(c => c.rowId)))

@@ -1,13 +1,12 @@
 // Every record a person makes on a device (customers, amps, jobs, parts, labour, notes, bench
-// results, procedure checks and runs). Each gets `<prefix>.create`, `.setFields` (with
-// baseVersion, edited field by field), `.delete` and `.restore` mutations; an insert-only record
-// (a bench result) has no `.setFields`.
+// results, procedure checks and runs): the rules for each one's fields. Its mutations are built
+// from these in protocol.ts.
 import { z } from 'zod'
 import { JOB_PRIORITIES, JOB_STATES } from '../jobs/states'
 import { MAX_REPEAT } from '../procedures/run'
 import { BENCH_TOOL_IDS } from '../bench/tool-ids'
 import { id } from '../schemas/records'
-import { ENTITY_DEFAULTS, ENTITY_FIXED, ENTITY_PREFIX, INSERT_ONLY, type EntityTable } from './entity-names'
+import { ENTITY_DEFAULTS, type EntityTable } from './entity-names'
 
 // The names, defaults and grouping of the records are plain data in entity-names.ts (the device's
 // sync engine loads them without any schema); the field rules are here.
@@ -38,15 +37,15 @@ const rigReading = z.object({
   plateVolts: z.number().positive({ message: 'must be more than 0 V' }).max(2000).nullable(),
 })
 
-export const ENTITY_FIELDS = {
-  customers: z.object({
+const FIELD_RULES = {
+  customers: () => z.object({
     name: text(120).min(1, { message: 'enter a name' }),
     email: z.union([z.literal(''), z.email({ message: 'enter a valid e-mail address' })]),
     phone: text(40),
     notes: text(2000),
     playerUserId: id.nullable(),
   }),
-  amps: z.object({
+  amps: () => z.object({
     customerId: id,
     description: text(200).min(1, { message: 'describe the amp' }),
     serial: text(80),
@@ -57,7 +56,7 @@ export const ENTITY_FIELDS = {
     notes: text(2000),
     rigId: id.nullable(),
   }),
-  jobs: z.object({
+  jobs: () => z.object({
     customerId: id,
     ampId: id,
     complaint: text(4000).min(1, { message: 'say what the customer reports' }),
@@ -68,14 +67,14 @@ export const ENTITY_FIELDS = {
     priority: z.enum(JOB_PRIORITIES),
     status: z.enum(JOB_STATES),
   }),
-  jobParts: z.object({
+  jobParts: () => z.object({
     jobId: id,
     description: text(200).min(1, { message: 'describe the part' }),
     quantity: z.number().positive().max(10_000),
     unitCostCents: cents,
     unitPriceCents: cents,
   }),
-  jobLabour: z.object({
+  jobLabour: () => z.object({
     jobId: id,
     description: text(200),
     minutes: z.number().int().positive().max(100_000),
@@ -84,14 +83,14 @@ export const ENTITY_FIELDS = {
   }),
   // Shop tube stock: tubes bought together (cost per tube), each tube's reading at a stated test
   // point (SI: volts, amps, siemens), and the matched sets made from them.
-  tubeLots: z.object({
+  tubeLots: () => z.object({
     tubeType,
     maker: text(120),
     receivedOn: z.union([z.literal(''), isoDay]),
     costCents: cents,
     notes: text(2000),
   }),
-  stockTubes: z.object({
+  stockTubes: () => z.object({
     lotId: id,
     label: text(20).min(1, { message: 'give the tube a label, like L3-07' }),
     plateVolts: z.number({ message: 'enter the plate voltage' }).finite().positive({ message: 'the plate voltage must be above zero' }).max(2000, { message: 'at most 2000 V' }),
@@ -102,7 +101,7 @@ export const ENTITY_FIELDS = {
     testedBy: text(120),
     setId: id.nullable(),
   }),
-  matchedSets: z.object({
+  matchedSets: () => z.object({
     tubeType,
     label: text(20).min(1, { message: 'give the set a label, like S-12' }),
     tubeIds: z.array(id).min(2).max(4),
@@ -116,14 +115,14 @@ export const ENTITY_FIELDS = {
     priceCents: cents.nullable(),
   }),
   // Note text is kept as typed (not trimmed): it is the person's own writing.
-  notes: z.object({
+  notes: () => z.object({
     jobId: id.nullable(),
     title: z.string().max(200, { message: 'at most 200 characters' }),
     body: z.string().max(20_000, { message: 'at most 20,000 characters' }),
     visibility: z.enum(NOTE_VISIBILITY),
   }),
   // A saved bench result; the server recomputes it from its inputs before taking it.
-  measurements: z.object({
+  measurements: () => z.object({
     tool: z.enum(BENCH_TOOL_IDS),
     inputs: z.record(z.string(), z.unknown()),
     outputs: z.record(z.string(), z.unknown()),
@@ -134,14 +133,14 @@ export const ENTITY_FIELDS = {
     rigId: id.nullable(),
   }),
   // Insert-only: who ticked which hazards, when, for which run.
-  procedureGates: z.object({
+  procedureGates: () => z.object({
     runId: id,
     procedureId,
     jobId: id.nullable(),
     items: z.array(z.string().min(1).max(64)).min(1).max(30),
     acknowledgedAt: at,
   }),
-  procedureRuns: z.object({
+  procedureRuns: () => z.object({
     procedureId,
     gateId: id,
     variant: z.string().max(40),
@@ -156,7 +155,7 @@ export const ENTITY_FIELDS = {
     endReason: text(500),
   }),
   // A player's own amp and its history; kept in the player's personal space.
-  rigs: z.object({
+  rigs: () => z.object({
     description: text(200).min(1, { message: 'describe the amp' }),
     serial: text(80),
     tubes: z.array(rigTube).max(32),
@@ -167,7 +166,7 @@ export const ENTITY_FIELDS = {
     retubeMonths: z.number().positive({ message: 'must be more than 0 months' }).max(600).nullable(),
     notes: text(2000),
   }),
-  rigTubeSets: z.object({
+  rigTubeSets: () => z.object({
     rigId: id,
     fittedOn: day,
     fittedBy: text(120),
@@ -176,71 +175,50 @@ export const ENTITY_FIELDS = {
     spare: z.boolean(),
     retiredOn: z.union([z.literal(''), day]),
   }),
-  rigGigs: z.object({
+  rigGigs: () => z.object({
     rigId: id,
     playedOn: day,
     hours: z.number().positive({ message: 'must be more than 0 hours' }).max(24, { message: 'at most 24 hours in a day' }),
     note: text(200),
   }),
-  rigShares: z.object({
+  rigShares: () => z.object({
     rigId: id,
     sharedShopId: id,
   }),
   // Kept in the shop: retube thresholds the shop suggests for a rig shared with it. The player's
   // own thresholds stay theirs until they adopt one.
-  rigSuggestions: z.object({
+  rigSuggestions: () => z.object({
     rigId: id,
     retubeHours: z.number().positive({ message: 'must be more than 0 hours' }).max(100_000).nullable(),
     retubeMonths: z.number().positive({ message: 'must be more than 0 months' }).max(600).nullable(),
     note: text(200),
     suggestedBy: text(120),
   }),
-} as const satisfies Record<EntityTable, z.ZodObject>
+} as const satisfies Record<EntityTable, () => z.ZodObject>
+
+/**
+ * Each record's field rules, built the first time they are read: a screen that only shows
+ * records builds none, and one that checks a job builds the job's alone.
+ */
+export const ENTITY_FIELDS = builtOnFirstRead(FIELD_RULES)
+
+function builtOnFirstRead<T extends Record<string, () => unknown>>(builders: T): { readonly [K in keyof T]: ReturnType<T[K]> } {
+  const built = {} as { [K in keyof T]: ReturnType<T[K]> }
+  for (const k of Object.keys(builders) as (keyof T & string)[]) {
+    Object.defineProperty(built, k, {
+      enumerable: true,
+      configurable: true,
+      get() {
+        const value = builders[k]!() as ReturnType<T[typeof k]>
+        Object.defineProperty(built, k, { value, enumerable: true })
+        return value
+      },
+    })
+  }
+  return built
+}
 
 export type EntityFields<T extends EntityTable> = z.infer<(typeof ENTITY_FIELDS)[T]>
-
-type Prefix<T extends EntityTable> = (typeof ENTITY_PREFIX)[T]
-type InsertOnly = (typeof INSERT_ONLY)[number]
-
-function entityMutations<T extends EntityTable>(table: T) {
-  const fields = ENTITY_FIELDS[table] as z.ZodObject
-  const prefix = ENTITY_PREFIX[table] as Prefix<T>
-  // Required fields are checked after the defaults are merged (see parseEntityCreate).
-  const create = fields.partial().extend({ id })
-  const editable = fields.omit(Object.fromEntries((ENTITY_FIXED[table] ?? []).map(f => [f, true])) as never).partial()
-  return {
-    [`${prefix}.create`]: create,
-    ...((INSERT_ONLY as readonly EntityTable[]).includes(table) ? {} : { [`${prefix}.setFields`]: z.object({ id, fields: editable.refine((f: object) => Object.keys(f).length > 0, { message: 'change at least one field' }) }) }),
-    [`${prefix}.delete`]: z.object({ id }),
-    [`${prefix}.restore`]: z.object({ id }),
-  } as {
-    [K in `${Prefix<T>}.create`]: z.ZodType<{ id: string } & Partial<EntityFields<T>>>
-  } & {
-    [K in T extends InsertOnly ? never : `${Prefix<T>}.setFields`]: z.ZodType<{ id: string, fields: Partial<EntityFields<T>> }>
-  } & {
-    [K in `${Prefix<T>}.delete` | `${Prefix<T>}.restore`]: z.ZodType<{ id: string }>
-  }
-}
-
-export const ENTITY_MUTATIONS = {
-  ...entityMutations('customers'),
-  ...entityMutations('amps'),
-  ...entityMutations('jobs'),
-  ...entityMutations('jobParts'),
-  ...entityMutations('jobLabour'),
-  ...entityMutations('tubeLots'),
-  ...entityMutations('stockTubes'),
-  ...entityMutations('matchedSets'),
-  ...entityMutations('notes'),
-  ...entityMutations('measurements'),
-  ...entityMutations('procedureGates'),
-  ...entityMutations('procedureRuns'),
-  ...entityMutations('rigs'),
-  ...entityMutations('rigTubeSets'),
-  ...entityMutations('rigGigs'),
-  ...entityMutations('rigShares'),
-  ...entityMutations('rigSuggestions'),
-}
 
 /** A create's full field set (defaults filled in), or the zod error naming what is missing. */
 export function parseEntityCreate<T extends EntityTable>(table: T, args: { id: string } & Record<string, unknown>) {
