@@ -131,6 +131,13 @@ export default defineNuxtConfig({
     // on a slow phone that work competes with the first screen (the service worker has it all anyway).
     defaults: { nuxtLink: { prefetchOn: { visibility: false, interaction: true } } },
   },
+  vite: {
+    // No <link rel="modulepreload"> for every chunk a lazy page or component imports: a tool page
+    // pulled in some forty, and inserting them cost a slow phone's main thread more than the
+    // round trips they save (Lighthouse: the idle-dissipation tool's first paint and largest paint
+    // came about a second sooner without them). CSS of lazy chunks is still loaded with them.
+    build: { modulePreload: false },
+  },
   typescript: { strict: true },
   eslint: { config: { stylistic: false } },
 })
