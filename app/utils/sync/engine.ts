@@ -151,7 +151,10 @@ export class SyncEngine {
   private async applyPull(reply: PullReply) {
     const db = this.db
     await db.transaction('rw', [db.meta, db.server, db.outbox, ...this.viewTables()], async () => {
-      if (reply.reset) {
+      // A device that holds no server rows yet (its first sync) has nothing to clear: its view is
+      // only its pending changes, which the rebase below redoes. Clearing every table costs a
+      // slow phone's first screen about as much as writing the page.
+      if (reply.reset && await db.server.where('shopId').equals(this.shopId).limit(1).count()) {
         await db.server.where('shopId').equals(this.shopId).delete()
         for (const t of VIEW_TABLES) await db.table(t).where('shopId').equals(this.shopId).delete()
       }
