@@ -117,4 +117,25 @@ describe('a push of many mutations in one batch', () => {
     expect(await sql('select id from notes where shop_id = ?', [shopId])).toHaveLength(0)
     expect(await sql('select mutation_id from sync_mutations where client_id = ?', [clientId])).toHaveLength(0)
   })
+
+  it('stores the text of creates inserted together exactly as sent, quotes, placeholders and all', async () => {
+    const { c, shopId } = await newOwner('batch-text')
+    const clientId = randomUUID()
+    const bodies = [
+      `O'Brien's "combo" \\ 2 × 6L6, C:\\amps\\ ?? ?`,
+      'line one\nline two\ttabbed -- not a comment; drop table notes;',
+      'émigré 真空管 🎸 \u0000 end',
+      '',
+    ]
+    const ids = bodies.map(() => randomUUID())
+    const r = await push(c, shopId, clientId, bodies.map((body, i) => m(i + 1, 'note.create', { id: ids[i], jobId: null, title: `T${i}?`, body })))
+    expect(r.status).toBe(200)
+    expect(r.body.results.map((x: { status: string }) => x.status)).toEqual(bodies.map(() => 'applied'))
+    const pulled = await c.post('/api/sync/pull', { clientId, shopId, schemaVersion: SYNC_SCHEMA_VERSION, cookie: null })
+    const notes = new Map(pulled.body.changes.filter((ch: { table: string }) => ch.table === 'notes').map((ch: { id: string, data: { body: string, title: string } }) => [ch.id, ch.data]))
+    ids.forEach((id, i) => expect(notes.get(id)).toMatchObject({ body: bodies[i], title: `T${i}?` }))
+    const stamps = await sql('select field_stamps, created_at from notes where id = ?', [ids[0]])
+    expect(Object.keys(typeof stamps[0].field_stamps === 'string' ? JSON.parse(stamps[0].field_stamps) : stamps[0].field_stamps)).toContain('body')
+    expect(Math.abs(new Date(stamps[0].created_at).getTime() - Date.now())).toBeLessThan(5 * 60_000)
+  })
 })

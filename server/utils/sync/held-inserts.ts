@@ -2,6 +2,7 @@ import type { EntityTable } from '#shared/utils/sync/entities'
 import { entityOf } from '#shared/utils/sync/entities'
 import type { MutationName } from '#shared/utils/sync/protocol'
 import type { Tx } from '../db'
+import { insertRows } from '../bulk-insert'
 import { ENTITY_POLICIES } from './entity-policies'
 
 const MAX_HELD = 250
@@ -41,7 +42,7 @@ export class HeldInserts {
   }
 
   async write(tx: Tx) {
-    if (this.table && this.rows.length) await tx.insert(ENTITY_POLICIES[this.table].table).values(this.rows)
+    if (this.table) await insertRows(tx, ENTITY_POLICIES[this.table].table, this.rows)
     this.table = null
     this.rows = []
   }

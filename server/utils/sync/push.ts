@@ -101,7 +101,7 @@ async function applyBatch(access: Access, clientId: string, mutations: Mutation[
       results.push({ id: m.id, status: outcome.status, ...(outcome.reason ? { reason: outcome.reason } : {}) })
     }
     await held.write(tx)
-    if (log.length) await tx.insert(tables.syncMutations).values(log)
+    await insertRows(tx, tables.syncMutations, log)
     if (version !== startVersion) await bumpShopVersion(tx, access.shopId, version)
     if (lmid !== startLmid) await tx.update(tables.syncClients).set({ lmid, lastSeenAt: sql`CURRENT_TIMESTAMP(3)` }).where(eq(tables.syncClients.id, clientId))
     return results
