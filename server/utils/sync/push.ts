@@ -14,8 +14,13 @@ export const payloadHash = (m: Mutation) => createHash('sha256').update(canonica
 /** The client must belong to this user and shop; the first push (or pull) registers it. */
 export async function registerClient(clientId: string, userId: string, shopId: string) {
   const db = useDb()
-  await db.insert(tables.syncClients).ignore().values({ id: clientId, userId, shopId })
-  const [c] = await db.select().from(tables.syncClients).where(eq(tables.syncClients.id, clientId))
+  const find = async () => (await db.select().from(tables.syncClients).where(eq(tables.syncClients.id, clientId)))[0]
+  // Read first: a device is new once, and a write on every pull and push is a round trip and a commit.
+  let c = await find()
+  if (!c) {
+    await db.insert(tables.syncClients).ignore().values({ id: clientId, userId, shopId })
+    c = await find()
+  }
   if (!c || c.userId !== userId || c.shopId !== shopId) {
     throw createError({ statusCode: 403, message: 'This device id belongs to another account or shop. Sign in again to start a fresh device store.' })
   }
