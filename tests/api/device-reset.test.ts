@@ -10,13 +10,19 @@ async function shopWithTech() {
   return { shop, member }
 }
 
+/** A note the shop's owner makes and syncs from another device; its id. */
+async function ownerNote(shop: Awaited<ReturnType<typeof newOwner>>, body: string) {
+  const id = crypto.randomUUID()
+  const d = await device(shop.c, shop.shopId)
+  await d.engine.mutate('note.create', { id, jobId: null, body })
+  await d.engine.sync()
+  return id
+}
+
 describe('a device when the server starts its view over (reset)', () => {
   it('on its first sync keeps the changes it made before, beside the shop\'s records', async () => {
     const { shop, member } = await shopWithTech()
-    const shopNote = crypto.randomUUID()
-    const d0 = await device(shop.c, shop.shopId)
-    await d0.engine.mutate('note.create', { id: shopNote, jobId: null, body: 'From the bench PC.' })
-    await d0.engine.sync()
+    const shopNote = await ownerNote(shop, 'From the bench PC.')
 
     // Offline from the start: a note made before the device ever synced.
     const d = await device(member.c, shop.shopId)
@@ -34,10 +40,7 @@ describe('a device when the server starts its view over (reset)', () => {
 
   it('after a role change drops what the new role may not see', async () => {
     const { shop, member } = await shopWithTech()
-    const shopNote = crypto.randomUUID()
-    const d0 = await device(shop.c, shop.shopId)
-    await d0.engine.mutate('note.create', { id: shopNote, jobId: null, body: 'Staff only.' })
-    await d0.engine.sync()
+    const shopNote = await ownerNote(shop, 'Staff only.')
 
     const d = await device(member.c, shop.shopId)
     await d.engine.pull()
